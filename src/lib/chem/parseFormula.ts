@@ -58,7 +58,8 @@ export function parseFormula(mf: string): ParsedFormula {
   try {
     parsed = new MF(mf.trim());
     info = parsed.getInfo() as unknown as { atoms: Record<string, number>; charge: number };
-    parts = parsed.getElements();
+    // getElements() does not accept charges: read the atoms of the neutral form
+    parts = info.charge ? new MF(parsed.toNeutralMF()).getElements() : parsed.getElements();
   } catch (error) {
     const message = error instanceof Error ? error.message.split('\n')[0] : String(error);
     const unknown = /Unknown element: ?(\S+)/i.exec(message);
