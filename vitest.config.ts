@@ -29,7 +29,7 @@ export default defineConfig({
         test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],
-          globalSetup: ['tests/setup/global-db.ts', 'tests/setup/global-server.ts'],
+          globalSetup: ['tests/setup/global-server.ts'],
           testTimeout: 90_000,
           hookTimeout: 180_000,
           fileParallelism: false,

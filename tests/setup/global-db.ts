@@ -3,22 +3,11 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import net from 'node:net';
 import type { TestProject } from 'vitest/node';
 import { startPrivateMariadb } from '../../db/mariadb.mjs';
 import { createSequelize } from '../../src/lib/db/sequelize';
 import { migrate } from '../../src/lib/db/migrate';
-
-export async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const port = (s.address() as net.AddressInfo).port;
-      s.close(() => resolve(port));
-    });
-  });
-}
+import { freePort } from './ports';
 
 let stop: (() => Promise<void>) | null = null;
 let dir = '';

@@ -1,0 +1,78 @@
+// Every API route and page with the capability it needs (API.md). The
+// middleware enforces this table before any endpoint runs, and a test walks
+// src/pages/api and fails for any route missing here, so no route can skip it.
+// Keys are `METHOD pattern`, the pattern as Astro reports it (context.routePattern).
+import type { Capability } from './roles';
+
+export type Need = 'public' | 'signed-in' | Capability;
+
+export const API_ROUTES: Record<string, Need> = {
+  'GET /api/health': 'public',
+  'GET /api/openapi.json': 'public',
+  'GET /api/auth/[...all]': 'public',
+  'POST /api/auth/[...all]': 'public',
+  'GET /api/me': 'signed-in',
+  'GET /api/formula': 'read',
+  'GET /api/spectra': 'read',
+  'GET /api/spectra/export.csv': 'read',
+  'GET /api/spectra/[id]': 'read',
+  'PATCH /api/spectra/[id]': 'curate',
+  'GET /api/spectra/[id]/jcamp': 'read',
+  'POST /api/spectra/[id]/review': 'curate',
+  'GET /api/tags': 'read',
+  'POST /api/tags': 'curate',
+  'PATCH /api/tags/[id]': 'curate',
+  'POST /api/tags/[id]/merge': 'curate',
+  'POST /api/tags/assign': 'curate',
+  'POST /api/imports': 'curate',
+  'GET /api/imports/[batchId]': 'curate',
+  'POST /api/imports/[batchId]/confirm': 'curate',
+  'POST /api/search': 'search',
+  'POST /api/search/batch': 'search',
+  'POST /api/interpret': 'search',
+  'GET /api/reports': 'read',
+  'POST /api/reports': 'report',
+  'GET /api/reports/[id]': 'read',
+  'PATCH /api/reports/[id]': 'report',
+  'POST /api/reports/[id]/review': 'report',
+  'GET /api/reports/[id]/pdf': 'read',
+  'GET /api/admin/users': 'admin',
+  'PATCH /api/admin/users/[id]': 'admin',
+  'GET /api/admin/invitations': 'admin',
+  'POST /api/admin/invitations': 'admin',
+  'POST /api/admin/invitations/[id]/resend': 'admin',
+  'GET /api/admin/api-keys': 'admin',
+  'POST /api/admin/api-keys': 'admin',
+  'DELETE /api/admin/api-keys/[id]': 'admin',
+  'POST /api/admin/lockouts/clear': 'admin',
+  'GET /api/admin/settings': 'admin',
+  'PUT /api/admin/settings': 'admin',
+  'GET /api/admin/audit': 'audit',
+  'GET /api/admin/mail': 'admin',
+  'POST /api/invitations/accept': 'public',
+};
+
+/** Pages: what a signed-in user needs to open them; anonymous visitors are sent to /sign-in. */
+export const PAGE_ROUTES: Record<string, Need> = {
+  '/': 'public',
+  '/sign-in': 'public',
+  '/accept-invitation': 'public',
+  '/reset-password': 'public',
+  '/403': 'public',
+  '/404': 'public',
+  '/sign-out': 'public',
+  '/500': 'public',
+  '/library': 'read',
+  '/library/[id]': 'read',
+  '/identify': 'search',
+  '/import': 'curate',
+  '/review': 'curate',
+  '/reports': 'read',
+  '/reports/[id]': 'read',
+  '/reports/[id]/print': 'read',
+  '/admin': 'admin',
+  '/admin/keys': 'admin',
+  '/admin/settings': 'admin',
+  '/admin/audit': 'audit',
+  '/admin/mail': 'admin',
+};

@@ -1,0 +1,60 @@
+// Session lookup into Astro.locals and the route guard. Every API route and
+// page is looked up in src/lib/route-manifest.ts before it runs: a route that
+// is not listed answers 404, so no route can skip the check.
+import { defineMiddleware } from 'astro:middleware';
+import { API_ROUTES, PAGE_ROUTES, type Need } from './lib/route-manifest';
+import { can } from './lib/roles';
+import { apiError, isDatabaseDown } from './lib/http';
+import { resolvePrincipal } from './lib/principal';
+import { ensureRuntime } from './lib/runtime';
+import './lib/startup';
+
+export const onRequest = defineMiddleware(async (context, next) => {
+  void ensureRuntime();
+  const { request, url } = context;
+  const isApi = url.pathname.startsWith('/api/');
+  const pattern = context.routePattern;
+  const need: Need | undefined = isApi ? API_ROUTES[`${request.method} ${pattern}`] : (PAGE_ROUTES[pattern] ?? 'read');
+
+  context.locals.user = null;
+  context.locals.session = null;
+  context.locals.apiKeyId = null;
+
+  if (isApi && need === undefined) {
+    if (pattern === '/404' || !Object.keys(API_ROUTES).some((k) => k.endsWith(` ${pattern}`))) {
+      return apiError(404, 'not_found', `No such route: ${request.method} ${url.pathname}`);
+    }
+    return apiError(405, 'method_not_allowed', `${request.method} is not allowed on ${url.pathname}`);
+  }
+
+  let dbDown = false;
+  if (!(isApi && (pattern === '/api/health' || pattern === '/api/auth/[...all]'))) {
+    try {
+      const p = await resolvePrincipal(request);
+      if (p) {
+        context.locals.user = p.user;
+        context.locals.session = p.session;
+        context.locals.apiKeyId = p.apiKeyId;
+      }
+    } catch (e) {
+      if (isDatabaseDown(e)) dbDown = true;
+      else console.error('[auth] session lookup failed:', (e as Error).message);
+    }
+  }
+
+  if (need === 'public') return next();
+  const user = context.locals.user;
+  if (!user) {
+    if (dbDown) {
+      if (isApi) return apiError(503, 'database_unavailable', 'The database is not reachable right now; try again shortly');
+      return new Response('The database is not reachable right now; try again shortly.', { status: 503, headers: { 'content-type': 'text/plain; charset=utf-8' } });
+    }
+    if (isApi) return apiError(401, 'unauthenticated', 'Sign in first, or send an API key');
+    return context.redirect(`/sign-in?next=${encodeURIComponent(url.pathname + url.search)}`, 302);
+  }
+  if (need !== 'signed-in' && !can(user.roles, need)) {
+    if (isApi) return apiError(403, 'forbidden', `Your roles (${user.roles.join(', ') || 'none'}) do not allow this (needs "${need}")`);
+    return context.rewrite('/403');
+  }
+  return next();
+});
