@@ -16,7 +16,7 @@ export interface FindMolecularIonOptions {
   lossMinRelative?: number;
   /**
    * Below this confidence the answer is null: no molecular ion seen.
-   * @default 0.1
+   * @default 0.2
    */
   minConfidence?: number;
 }
@@ -49,7 +49,7 @@ export function findMolecularIon(
   peaks: readonly Peak[] | UnitSpectrum,
   options: FindMolecularIonOptions = {},
 ): MolecularIonCandidate | null {
-  const { minRelative = 0.5, lossMinRelative = 5, minConfidence = 0.1 } = options;
+  const { minRelative = 0.5, lossMinRelative = 5, minConfidence = 0.2 } = options;
   if (!(lossMinRelative >= 0)) throw new RangeError('lossMinRelative must be >= 0');
   if (!(minConfidence >= 0 && minConfidence <= 1)) throw new RangeError('minConfidence must be between 0 and 1');
   const unit = Array.isArray(peaks) ? toUnitSpectrum(peaks as Peak[]) : (peaks as UnitSpectrum);
