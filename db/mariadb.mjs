@@ -236,3 +236,20 @@ export function mariadbToolPath(name) {
     return null;
   }
 }
+
+/**
+ * For commands that run beside a live app (backup, restore, check-data): use
+ * the private instance when it already answers, else start it for the
+ * duration of the command.
+ */
+export async function usePrivateMariadb({ dataDir, port, log = console.log }) {
+  const datadir = path.join(path.resolve(dataDir), 'mariadb');
+  const socketPath = path.join(datadir, 'mysqld.sock');
+  try {
+    await waitUntilAnswers({ socketPath, timeoutMs: 1500 });
+    return { port, socketPath, datadir, stop: async () => {}, alreadyRunning: true };
+  } catch {
+    const db = await startPrivateMariadb({ dataDir, port, log });
+    return { ...db, alreadyRunning: false };
+  }
+}
