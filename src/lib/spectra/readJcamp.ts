@@ -512,7 +512,11 @@ function lineForConverter(line: string): string {
 }
 
 function plainDecimal(value: number): string {
-  return value.toLocaleString('en-US', { useGrouping: false, maximumFractionDigits: 100 });
+  if (Math.abs(value) >= 1e21) return BigInt(value).toString();
+  const text = String(value);
+  if (!/e/i.test(text)) return text;
+  // toFixed(100) spells out the exact binary value, which reads back to the same number
+  return value.toFixed(100).replace(/\.?0+$/, '');
 }
 
 function miniDocument(lines: string[]): string {
@@ -722,12 +726,15 @@ function readNtuples(
     }
     const peaks = readPeakTableRecord(block, table, page.records, { section, page, descriptor }, limits, warn);
     const metadata = readMetadata(block, [...page.records, ...section.header, section.start], warn);
-    const retentionTime = metadata.retentionTime ?? (isTime ? pageValue : null);
+    const pageTime = page.records.find((r) => r.canon === 'RETENTIONTIME' || r.canon === '.RETENTIONTIME');
+    const retentionTime = pageTime
+      ? parseLeadingNumber(recordValue(pageTime))
+      : isTime && pageValue !== null
+        ? pageValue
+        : metadata.retentionTime;
     spectra.push({
       ...metadata,
-      retentionTime: page.records.some((r) => r.canon === 'RETENTIONTIME' || r.canon === '.RETENTIONTIME')
-        ? metadata.retentionTime
-        : retentionTime,
+      retentionTime,
       page: p + 1,
       peaks,
       dataForm: 'ntuples',
