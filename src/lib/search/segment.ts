@@ -1,0 +1,181 @@
+import { stageInto } from './prepare';
+import type { PeakWeights } from './types';
+
+/**
+ * Library spectra in stored form, column by column (the fast way in: no
+ * object per spectrum or per peak). Spectrum d owns peaks offsets[d] ..
+ * offsets[d+1]-1, with bins sorted ascending and unique, and `rel` the
+ * intensity relative to the base peak in (0, 1].
+ */
+export interface StoredColumns {
+  count: number;
+  offsets: ArrayLike<number>;
+  bins: ArrayLike<number>;
+  rel: Float32Array;
+  recordIds: ArrayLike<number>;
+  spectrumIds: ArrayLike<number>;
+}
+
+/**
+ * The immutable, shared-memory part of the index. Every array lives in a
+ * SharedArrayBuffer, so worker threads read the same memory without copies
+ * (posting a Segment to a worker shares the buffers). Spectra ("docs") are
+ * ordered by (recordId, spectrumId), so doc order is the tie-break order.
+ */
+export interface Segment {
+  id: number;
+  n: number;
+  nPeaks: number;
+  /** Largest bin + 1. */
+  nBins: number;
+  tolerance: number;
+  weights: PeakWeights;
+  maxDocPeaks: number;
+  // Forward storage, doc by doc.
+  docStart: Uint32Array;
+  fBin: Uint16Array | Int32Array;
+  /** Unit-norm m/z^a * I^b weights. */
+  fW: Float32Array;
+  /** Entropy intensities (Li et al. 2021 preprocessing), summing to 1 per doc. */
+  fE: Float32Array;
+  /** Intensity relative to the base peak, for searches with other options. */
+  fRel: Float32Array;
+  /** sqrt(sum fW^2) per doc as stored. */
+  docNorm: Float64Array;
+  recordId: Float64Array;
+  spectrumId: Float64Array;
+  // Inverted index: bin -> docs (ascending) with their weight.
+  pStart: Uint32Array;
+  pDoc: Uint32Array;
+  pW: Float32Array;
+  binMaxW: Float32Array;
+  binMaxE: Float32Array;
+  /** 1 while a doc is current, 0 once removed or replaced (shared, mutable). */
+  live: Uint8Array;
+}
+
+let nextSegmentId = 1;
+
+function shared<T>(Ctor: { new (buffer: SharedArrayBuffer, byteOffset?: number, length?: number): T; BYTES_PER_ELEMENT: number }, length: number): T {
+  return new Ctor(new SharedArrayBuffer(Math.max(1, length) * Ctor.BYTES_PER_ELEMENT), 0, length);
+}
+
+/** Build a segment from stored spectra. Empty docs are kept (they match nothing). */
+export function buildSegment(cols: StoredColumns, tolerance: number, weights: PeakWeights): Segment {
+  const { count, offsets, bins, rel, recordIds, spectrumIds } = cols;
+  let sorted = true;
+  for (let d = 1; d < count && sorted; d++) {
+    if (recordIds[d] < recordIds[d - 1] || (recordIds[d] === recordIds[d - 1] && spectrumIds[d] <= spectrumIds[d - 1])) sorted = false;
+  }
+  let order: Uint32Array;
+  if (sorted) {
+    order = new Uint32Array(count);
+    for (let d = 0; d < count; d++) order[d] = d;
+  } else {
+    const idx = Array.from({ length: count }, (_, d) => d);
+    idx.sort((a, b) => recordIds[a] - recordIds[b] || spectrumIds[a] - spectrumIds[b]);
+    order = Uint32Array.from(idx);
+  }
+  let nPeaks = 0;
+  let maxBin = 0;
+  let maxDocPeaks = 0;
+  for (let d = 0; d < count; d++) {
+    const len = offsets[d + 1] - offsets[d];
+    nPeaks += len;
+    if (len > maxDocPeaks) maxDocPeaks = len;
+  }
+  for (let j = 0; j < offsets[count]; j++) if (bins[j] > maxBin) maxBin = bins[j];
+  const nBins = maxBin + 1;
+
+  const docStart = shared(Uint32Array, count + 1);
+  const fBin = nBins <= 65536 ? shared(Uint16Array, nPeaks) : shared(Int32Array, nPeaks);
+  const fW = shared(Float32Array, nPeaks);
+  const fE = shared(Float32Array, nPeaks);
+  const fRel = shared(Float32Array, nPeaks);
+  const docNorm = shared(Float64Array, count);
+  const recordId = shared(Float64Array, count);
+  const spectrumId = shared(Float64Array, count);
+  const live = shared(Uint8Array, count);
+  const binCount = new Uint32Array(nBins + 1);
+
+  const tmpBins = new Int32Array(maxDocPeaks);
+  const tmpW = new Float32Array(maxDocPeaks);
+  const tmpE = new Float32Array(maxDocPeaks);
+  let at = 0;
+  for (let d = 0; d < count; d++) {
+    const src = order[d];
+    const s = offsets[src];
+    const e = offsets[src + 1];
+    docStart[d] = at;
+    const { n, norm } = stageInto(bins, rel, s, e, tolerance, weights, 0, 0, [], tmpBins, tmpW, tmpE);
+    for (let i = 0; i < n; i++) {
+      fBin[at + i] = tmpBins[i];
+      fW[at + i] = tmpW[i];
+      fE[at + i] = tmpE[i];
+      fRel[at + i] = rel[s + i];
+      binCount[tmpBins[i]]++;
+    }
+    at += n;
+    docNorm[d] = norm;
+    recordId[d] = recordIds[src];
+    spectrumId[d] = spectrumIds[src];
+    live[d] = 1;
+  }
+  docStart[count] = at;
+
+  const pStart = shared(Uint32Array, nBins + 1);
+  let acc = 0;
+  for (let b = 0; b < nBins; b++) {
+    pStart[b] = acc;
+    acc += binCount[b];
+  }
+  pStart[nBins] = acc;
+  const pDoc = shared(Uint32Array, at);
+  const pW = shared(Float32Array, at);
+  const binMaxW = shared(Float32Array, nBins);
+  const binMaxE = shared(Float32Array, nBins);
+  const fill = binCount; // reuse as a cursor per bin
+  for (let b = 0; b < nBins; b++) fill[b] = pStart[b];
+  for (let d = 0; d < count; d++) {
+    for (let j = docStart[d]; j < docStart[d + 1]; j++) {
+      const b = fBin[j];
+      const k = fill[b]++;
+      pDoc[k] = d;
+      const w = fW[j];
+      pW[k] = w;
+      if (w > binMaxW[b]) binMaxW[b] = w;
+      if (fE[j] > binMaxE[b]) binMaxE[b] = fE[j];
+    }
+  }
+  return {
+    id: nextSegmentId++ + Math.floor(Math.random() * 1e6) * 1e6,
+    n: count,
+    nPeaks: at,
+    nBins,
+    tolerance,
+    weights: { ...weights },
+    maxDocPeaks,
+    docStart,
+    fBin,
+    fW,
+    fE,
+    fRel,
+    docNorm,
+    recordId,
+    spectrumId,
+    pStart,
+    pDoc,
+    pW,
+    binMaxW,
+    binMaxE,
+    live,
+  };
+}
+
+/** Bytes held by a segment's typed arrays (forward storage, postings and per-doc columns). */
+export function segmentBytes(seg: Segment): number {
+  const arrays = [seg.docStart, seg.fBin, seg.fW, seg.fE, seg.fRel, seg.docNorm, seg.recordId, seg.spectrumId, seg.pStart, seg.pDoc, seg.pW, seg.binMaxW, seg.binMaxE, seg.live];
+  let bytes = 0;
+  for (const a of arrays) bytes += a.byteLength;
+  return bytes;
+}
