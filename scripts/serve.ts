@@ -89,7 +89,8 @@ export async function createApp({ root, dataDir }: { root: string; dataDir: stri
     });
   });
 
-  app.use((req, res, next) => handler(req, res, next));
+  // No next(): an unmatched path renders Astro's 404 page (JSON for /api/).
+  app.use((req, res) => handler(req, res));
   app.use((err: any, _req: express.Request, res: express.Response, _next: express.NextFunction) => {
     console.error('[server] unexpected error:', err?.message ?? err);
     if (!res.headersSent) jsonError(res, 500, 'internal_error', 'Something went wrong on the server');
