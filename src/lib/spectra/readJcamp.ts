@@ -237,7 +237,7 @@ function findBinary(text: string): string | null {
   if (found) {
     const at = text.search(control);
     const line = text.slice(0, at).split('\n').length;
-    return found.length > 8 || found.length > text.length / 1000
+    return found.length > 8
       ? 'binary data, not a JCAMP-DX text file (it contains control characters)'
       : `line ${line}: a control character (U+${found[0].charCodeAt(0).toString(16).padStart(4, '0')}) in the text`;
   }
@@ -508,7 +508,8 @@ function lineForConverter(line: string): string {
   if (tokenized.ok && tokenized.tokens.some((token) => /[eE]/.test(token.text) && token.kind === 'value' && /\d[eE]|\.[eE]/.test(token.text))) {
     return tokenized.tokens.map((token) => (token.kind === 'missing' ? '@' : plainDecimal(token.value))).join(' ');
   }
-  return line.replace(/\?/g, ' @ ');
+  // jcampconverter takes a comma for a decimal point, the standard for a separator
+  return line.replace(/\?/g, ' @ ').replace(/,/g, ' ');
 }
 
 function plainDecimal(value: number): string {
