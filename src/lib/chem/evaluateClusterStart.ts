@@ -30,7 +30,8 @@ export interface ClusterStartEvaluation {
   mz: number;
   /** members: nominal m/z with relative intensity (base peak = 100) */
   members: Array<{ mz: number; relative: number }>;
-  halogens: HalogenEstimate;
+  /** Cl/Br estimate for the cluster; null when there is no significant peak at `mz` */
+  halogens: HalogenEstimate | null;
   /** observed (M+1)/M */
   m1Ratio: number;
   /** largest (M+1)/M that C, H, N, O, S and Si could give at this mass */
@@ -71,11 +72,14 @@ export function evaluateClusterStart(
   const base = read(mz);
   const members: Array<{ mz: number; relative: number }> = [];
   for (let x = mz; x <= mz + reach; x++) if (read(x) > 0) members.push({ mz: x, relative: read(x) });
-  const halogens = estimateHalogens(unit, mz, { maxHalogens, upperLimit });
   const m1RatioMax = maxM1Ratio(mz);
-  const m1Ratio = base > 0 ? read(mz + 1) / base : Infinity;
-  let acceptable = base > 0;
-  if (base <= 0) reasons.push(`no significant peak at m/z ${mz}`);
+  if (base <= 0) {
+    reasons.push(`no significant peak at m/z ${mz}`);
+    return { acceptable: false, mz, members, halogens: null, m1Ratio: Infinity, m1RatioMax, reasons };
+  }
+  const halogens = estimateHalogens(unit, mz, { maxHalogens, upperLimit });
+  const m1Ratio = read(mz + 1) / base;
+  let acceptable = true;
   if (acceptable && m1Ratio > m1RatioMax) {
     acceptable = false;
     reasons.push(

@@ -75,7 +75,7 @@ export function findIsotopeClusters(
           break; // remaining is ascending: the first acceptable is the lowest
         }
       }
-      if (chosen.members.length >= minMembers) {
+      if (chosen.halogens && chosen.members.length >= minMembers) {
         const { Cl, Br, fit, alternatives } = chosen.halogens;
         clusters.push({ mz: chosen.mz, members: chosen.members, halogens: { Cl, Br, fit, alternatives } });
       }

@@ -70,7 +70,14 @@ export function interpretSpectrum(peaks: readonly Peak[], options: InterpretSpec
   const compositions = [halogenEstimate, ...estimate.alternatives];
   const candidates = compositions
     .flatMap((h) =>
-      candidateFormulas(m, { limits, halogenEstimate: { Cl: h.Cl, Br: h.Br }, observedCluster, limit: candidateLimit }),
+      candidateFormulas(m, {
+        limits,
+        halogenEstimate: { Cl: h.Cl, Br: h.Br },
+        observedCluster,
+        limit: candidateLimit,
+        // the whole interpretation stays inside about 150 ms
+        timeBudgetMs: 120 / compositions.length,
+      }),
     )
     .sort((a, b) => (a.isotopeFit ?? 0) - (b.isotopeFit ?? 0))
     .slice(0, candidateLimit)
