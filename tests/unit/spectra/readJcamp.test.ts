@@ -239,7 +239,7 @@ describe('readJcamp: bad input is rejected with a clear message', () => {
     ['an NTUPLES page in an unsupported form', () => ntuples.replace('##DATA TABLE= (XY..XY), PEAKS\n65', '##DATA TABLE= (X++(Y..Y)), XYDATA\n65'), /must hold peak tables/],
     ['BLOCKS contradicting the blocks found', () => link.replace('##BLOCKS= 2', '##BLOCKS= 3'), /##BLOCKS= says 3 blocks but .* holds 2/],
     ['a label after the last ##END=', () => `${xy}##TITLE2= x\n`.replace('##TITLE2', '##OWNER'), /after the last ##END=, outside any block/],
-    ['a control character in the text', () => xy.replace('Benzol', 'Ben\u0007zol'), /line 9: a control character \(U+0007\)/],
+    ['a control character in the text', () => xy.replace('Benzol', 'Ben\u0007zol'), /line 9: a control character \(U\+0007\)/],
     ['a file with no mass spectrum', () => '##TITLE= x\n##JCAMP-DX= 5.01\n##DATA TYPE= INFRARED SPECTRUM\n##PEAK TABLE= (XY..XY)\n1000, 5\n##END=\n', /no mass spectrum found/],
     ['a spectrum without peaks', () => xy.replace('##NPOINTS= 9\n', '').replace(/##PEAK TABLE= \(XY..XY\)\n[\s\S]*?##END=/, '##PEAK TABLE= (XY..XY)\n39, 0\n##END='), /has no peaks with an intensity above zero/],
   ])('%s', (_name, make, message) => {
