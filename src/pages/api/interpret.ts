@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { handle, json, readJson } from '../../lib/http';
+import { handle, json, readJson, HttpError } from '../../lib/http';
 import { interpretBodySchema } from '../../lib/query/schemas';
 import { resolveQuery } from '../../lib/query/resolve-query';
 import { interpretSpectrum } from '../../lib/chem/index';
@@ -10,7 +10,13 @@ export const POST: APIRoute = handle(async ({ request, locals }) => {
   const body = await readJson(request, interpretBodySchema);
   const query = await resolveQuery(body, locals.user!.roles);
   const t0 = performance.now();
-  const result = interpretSpectrum(query.peaks);
+  let result;
+  try {
+    result = interpretSpectrum(query.peaks);
+  } catch (e) {
+    if (e instanceof RangeError) throw new HttpError(400, 'invalid_input', `peaks: ${e.message}`);
+    throw e;
+  }
   return json({
     ...result,
     query: { source: query.source, peakCount: query.peaks.length },
