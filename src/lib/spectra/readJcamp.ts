@@ -50,9 +50,6 @@ export interface ReadJcampOptions {
   centroidMinRelativeHeight?: number;
 }
 
-type Failure = { ok: false; error: string };
-type Ok<T> = { ok: true; value: T };
-
 class Rejection extends Error {}
 
 /** Labels of data records; everything else in a block is metadata. */
@@ -210,13 +207,14 @@ function readValidated(text: string, limits: Limits): ReadJcampResult {
       const { peaks, dataForm } = readXyDataRecord(block, chosen, limits, warn);
       spectra.push({ ...metadata, peaks, dataForm, page: null });
     } else {
-      const peaks = readPeakTableRecord(block, chosen, block.records, null, limits, warn);
+      const peaks = readPeakTableRecord(chosen, block.records, null, limits, warn);
       spectra.push({ ...metadata, peaks, dataForm: 'peak table', page: null });
     }
   }
 
   if (spectra.length === 0) {
-    return { ok: false, error: 'no mass spectrum found in the file' };
+    const why = warnings.filter((w) => w.code !== 'text_after_end').map((w) => w.message);
+    return { ok: false, error: `no mass spectrum found in the file${why.length ? `: ${why.join('; ')}` : ''}` };
   }
   for (const spectrum of spectra) {
     if (spectrum.peaks.length === 0) {
@@ -486,7 +484,8 @@ function crossCheckXyData(block: ScannedBlock, record: LabeledRecord, rawY: numb
       `line ${record.line}: the XYDATA reads as ${x.length} points line by line but as ${cx.length} with jcampconverter; the data are ambiguous`,
     );
   }
-  const scale = Math.max(1e-300, ...y.filter((v) => !Number.isNaN(v)).map(Math.abs));
+  let scale = 1e-300;
+  for (const value of y) if (Math.abs(value) > scale) scale = Math.abs(value);
   for (let i = 0; i < x.length; i++) {
     const xOk = Math.abs(cx[i] - x[i]) <= 1e-6 * Math.max(1, Math.abs(x[i]));
     const yOk = Number.isNaN(rawY[i]) || Math.abs(cy[i] - y[i]) <= 1e-9 * scale;
@@ -552,7 +551,6 @@ function peakTableForm(descriptor: string): PeakTableForm | null {
  * labels); `ntuples` gives the factors and symbols of an NTUPLES section instead.
  */
 function readPeakTableRecord(
-  block: ScannedBlock,
   record: LabeledRecord,
   headerRecords: LabeledRecord[],
   ntuples: { section: NtuplesSection; page: NtuplesPage; descriptor: string } | null,
@@ -652,7 +650,6 @@ function readPeakTableRecord(
     peaks.push([mz, intensity]);
   }
   if (missing > 0) warn('missing_value', `${context}: ${missing} peak(s) with a missing value ("?") skipped`);
-  void block;
   return finishPeaks(peaks, context, limits, warn);
 }
 
@@ -725,7 +722,7 @@ function readNtuples(
         `line ${table.line}: NTUPLES pages must hold peak tables ("(XY..XY), PEAKS"); "${shorten(table.head)}" is not supported`,
       );
     }
-    const peaks = readPeakTableRecord(block, table, page.records, { section, page, descriptor }, limits, warn);
+    const peaks = readPeakTableRecord(table, page.records, { section, page, descriptor }, limits, warn);
     const metadata = readMetadata(block, [...page.records, ...section.header, section.start], warn);
     const pageTime = page.records.find((r) => r.canon === 'RETENTIONTIME' || r.canon === '.RETENTIONTIME');
     const retentionTime = pageTime

@@ -269,3 +269,25 @@ describe('readJcamp: bad input is rejected with a clear message', () => {
     expect(() => readJcamp(xy, { unitSpacingTolerance: 0.7 })).toThrow(RangeError);
   });
 });
+
+describe('readJcamp: size', () => {
+  it('reads 200,000 profile points and centroids them', () => {
+    // 2,000 m/z units at 0.01 spacing, one triangle peak per unit
+    const n = 200_000;
+    const y = Array.from({ length: n }, (_, i) => Math.max(0, 50 - Math.abs((i % 100) - 50)) * 10);
+    const lines: string[] = [];
+    for (let i = 0; i < n; i += 10) lines.push(`${(1 + i * 0.01).toFixed(2)} ${y.slice(i, i + 10).join(' ')}`);
+    const text = [
+      '##TITLE= long profile', '##JCAMP-DX= 5.01', '##DATA TYPE= MASS SPECTRUM',
+      '##XFACTOR= 1', '##YFACTOR= 1', '##FIRSTX= 1', `##LASTX= ${1 + (n - 1) * 0.01}`, `##NPOINTS= ${n}`,
+      '##XYDATA= (X++(Y..Y))', ...lines, '##END=', '',
+    ].join('\n');
+    const result = readJcamp(text);
+    if (!result.ok) throw new Error(result.error);
+    const { peaks, dataForm } = result.spectra[0];
+    expect(dataForm).toBe('profile centroided');
+    expect(peaks).toHaveLength(2000);
+    expect(peaks[0][0]).toBeCloseTo(1.5, 9);
+    expect(peaks[1999][0]).toBeCloseTo(2000.5, 6);
+  });
+});
