@@ -8,6 +8,22 @@ import { apiError, isDatabaseDown } from './lib/http';
 import { resolvePrincipal } from './lib/principal';
 import { ensureRuntime } from './lib/runtime';
 import './lib/startup';
+import { trustedOrigins } from './lib/auth';
+
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * Astro's checkOrigin covers form posts; this covers every other body type
+ * too (JSON in particular): a state-changing request that carries cookies
+ * must come from our own origin. API-key calls carry no cookie and pass.
+ */
+function crossSiteWithCookies(request: Request, url: URL): boolean {
+  if (SAFE_METHODS.has(request.method) || !request.headers.get('cookie')) return false;
+  if (url.pathname.startsWith('/api/auth/')) return false; // better-auth checks its own routes
+  const origin = request.headers.get('origin');
+  if (!origin) return !!request.headers.get('cookie')?.includes('session_token');
+  return origin !== url.origin && !trustedOrigins().includes(origin);
+}
 
 export const onRequest = defineMiddleware(async (context, next) => {
   void ensureRuntime();
@@ -25,6 +41,11 @@ export const onRequest = defineMiddleware(async (context, next) => {
       return apiError(404, 'not_found', `No such route: ${request.method} ${url.pathname}`);
     }
     return apiError(405, 'method_not_allowed', `${request.method} is not allowed on ${url.pathname}`);
+  }
+
+  if (crossSiteWithCookies(request, url)) {
+    if (isApi) return apiError(403, 'cross_site_request', 'Requests with a session cookie must come from this site (Origin header)');
+    return new Response('Cross-site request refused.', { status: 403, headers: { 'content-type': 'text/plain; charset=utf-8' } });
   }
 
   let dbDown = false;
