@@ -12,7 +12,7 @@ export default function PasswordFields(props: { password: string; confirm: strin
     <>
       <div>
         <label className="label" htmlFor="new-password">New password</label>
-        <input id="new-password" name="new-password" type="password" autoComplete="new-password" required minLength={MIN_PASSWORD} className="field" value={props.password} onChange={(e) => props.onPassword(e.target.value)} />
+        <input id="new-password" name="new-password" type="password" autoComplete="new-password" required className="field" value={props.password} onChange={(e) => props.onPassword(e.target.value)} />
         <p className="mt-1 text-xs text-muted">At least {MIN_PASSWORD} characters. A short sentence is easier to remember than symbols.</p>
       </div>
       <div>
