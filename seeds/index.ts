@@ -8,6 +8,7 @@ import { hashPassword } from 'better-auth/crypto';
 import { appendAudit } from '../src/lib/audit';
 import { encodePeaks, peakContentHash } from '../src/lib/spectra/index';
 import { versionDigest, APPROVAL_MEANING } from '../src/lib/curation/workflow';
+import { compoundNameKey } from '../src/lib/curation/compoundKey';
 import { DEMO_COMPOUNDS, type DemoCompound } from './compounds';
 import { compoundChemistry } from './compound-chemistry';
 import { SYNTHETIC_NOTE, seededRandom, syntheticSpectrum } from './synthetic-spectrum';
@@ -132,20 +133,26 @@ async function insert(sequelize: Sequelize, table: string, row: Record<string, u
 /** Seed the demo scenario into an empty database; refuse, touching nothing, otherwise. */
 export async function seedDemo(sequelize: Sequelize, { password, log = () => {} }: SeedOptions): Promise<SeedResult> {
   if (!password) throw new RangeError('password is required (DEMO_PASSWORD)');
+  const counts = emptyCounts();
+  const refusal = async (t?: Transaction): Promise<SeedResult | null> => {
+    const records = await count(sequelize, 'spectrum_record', t);
+    const users = await count(sequelize, 'user', t);
+    if (records === 0 && users === 0) return null;
+    return { seeded: false, reason: `the database is not empty (${records} records, ${users} users): the demo is seeded only into an empty database`, counts };
+  };
+  // The usual case on a restart: a quick look, no password hashing.
+  const early = await refusal();
+  if (early) return early;
   // Hash before the transaction: better-auth's scrypt takes a while per user.
   const hashes = await Promise.all(DEMO_USERS.map(() => hashPassword(password)));
-  const counts = emptyCounts();
   const plans = planScenario();
 
   return sequelize.transaction(async (t) => {
     // Serialise concurrent seeders (two servers starting together): the row lock
     // comes first, so the counts below see whatever the other one committed.
     await sequelize.query('SELECT version FROM library_state WHERE id = 1 FOR UPDATE', { type: QueryTypes.SELECT, transaction: t });
-    const records = await count(sequelize, 'spectrum_record', t);
-    const users = await count(sequelize, 'user', t);
-    if (records > 0 || users > 0) {
-      return { seeded: false, reason: `the database is not empty (${records} records, ${users} users): the demo is seeded only into an empty database`, counts };
-    }
+    const refused = await refusal(t);
+    if (refused) return refused;
     const now = new Date();
     const q = (table: string, row: Record<string, unknown>) => insert(sequelize, table, row, t);
     const audit = (user: DemoUser | null, input: Omit<Parameters<typeof appendAudit>[0], 'actorId' | 'actorEmail'>) => {
@@ -186,7 +193,7 @@ export async function seedDemo(sequelize: Sequelize, { password, log = () => {} 
       const spectrum = syntheticSpectrum({ formula: c.formula, smiles: c.smiles, cls: c.cls, molecularIon: c.molecularIon !== 'absent' });
       const peaks = spectrum.peaks;
       const compoundId = await q('compound', {
-        name: c.name, nameKey: c.name.normalize('NFKC').toLowerCase().replace(/\s+/g, ' ').trim(), formula: chem.formula,
+        name: c.name, nameKey: compoundNameKey(c.name), formula: chem.formula,
         casRegistryNo: c.cas ?? null, createdAt: now, updatedAt: now,
       });
       counts.compounds++;

@@ -2,7 +2,7 @@
 // molecule's atoms with their hydrogens, which single bonds may break and what
 // each side of such a bond weighs, and a few group flags. Read from SMILES with
 // openchemlib.
-import OCL from 'openchemlib';
+import { Molecule } from 'openchemlib';
 
 export type Atoms = Record<string, number>;
 
@@ -46,8 +46,8 @@ function add(target: Atoms, symbol: string, n = 1) {
 }
 
 export function structureFeatures(smiles: string): StructureFeatures {
-  const mol = OCL.Molecule.fromSmiles(smiles);
-  mol.ensureHelperArrays(OCL.Molecule.cHelperRings);
+  const mol = Molecule.fromSmiles(smiles);
+  mol.ensureHelperArrays(Molecule.cHelperRings);
   const heavy = mol.getAtoms();
   const symbol = (i: number) => SYMBOL[mol.getAtomicNo(i)] ?? `Z${mol.getAtomicNo(i)}`;
   const hydrogens = (i: number) => mol.getAllHydrogens(i);
