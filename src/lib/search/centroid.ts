@@ -14,12 +14,17 @@ export interface CentroidOptions {
  * at most `maxGap` apart, and replace each run by one peak at its
  * intensity-weighted mean m/z with the run's apex height (heights, not areas,
  * so that peaks of different widths keep their relative intensities).
- * Already centroided input comes back sorted and otherwise unchanged.
+ * Input counts as profile data when most consecutive points are that close;
+ * centroided input comes back sorted and otherwise unchanged (repeated m/z
+ * values are left for binPeaks to sum).
  */
 export function centroid(peaks: readonly Peak[], options: CentroidOptions = {}): Peak[] {
   const { maxGap = 0.2 } = options;
   if (!(maxGap >= 0) || !Number.isFinite(maxGap)) throw new RangeError('maxGap must be a finite number >= 0');
   const sorted = [...peaks].sort((a, b) => a[0] - b[0]);
+  let close = 0;
+  for (let k = 1; k < sorted.length; k++) if (sorted[k][0] - sorted[k - 1][0] <= maxGap) close++;
+  if (sorted.length < 3 || close * 2 <= sorted.length - 1) return sorted.map((p) => [p[0], p[1]]);
   const out: Peak[] = [];
   let i = 0;
   while (i < sorted.length) {

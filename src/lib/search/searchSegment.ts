@@ -1,3 +1,4 @@
+import { entropyWeightsInto } from './entropyWeights';
 import { stageInto, type PreparedSpectrum } from './prepare';
 import { scoreMerged, SCORE_SLOT } from './scorePrepared';
 import type { Segment } from './segment';
@@ -6,11 +7,16 @@ import type { PeakWeights, ScoreName } from './types';
 
 const LN4 = Math.log(4);
 /**
- * Slack for comparisons between bounds accumulated from 32-bit stored
- * weights and exact 64-bit scores: bounds are only trusted to prune when
- * they fall this far below the k-th score. Rounding errors are ~1e-7.
+ * Slack between values accumulated from the 32-bit stored weights (bounds,
+ * one-pass approximations) and the exact 64-bit scores: a doc is only ever
+ * dropped when its bound is this far below the k-th exact score. The
+ * rounding differences are ~1e-7.
  */
 const EPS = 1e-5;
+/** Work of one exact rescoring, in postings read (a merge over ~2 x 80 peaks). */
+const EVAL_COST = 40;
+/** Docs per block of the one-pass modes (32 bytes of state each: 1 MiB, cache-sized). */
+const BLOCK = 32768;
 
 export interface GenericStage {
   tolerance: number;
@@ -31,7 +37,7 @@ export interface KernelParams {
   hi: number;
   /** Re-preprocess library spectra with these options (null: use the stored weights). */
   generic: GenericStage | null;
-  /** Turn pruning off (full pass); for tests and the benchmark. */
+  /** Turn pruning off (cosine: every term in full); for tests and the benchmark. */
   noPruning?: boolean;
 }
 
@@ -48,14 +54,14 @@ export interface KernelResult {
 }
 
 interface Scratch {
-  acc: Float64Array;
-  acc2: Float64Array | null;
-  cnt: Uint16Array;
+  /** Per doc d, interleaved so one cache line serves a posting: [4d] dot, [4d+1] ratio or q^2 sum, [4d+2] previous ratio, [4d+3] shared count. */
+  st: Float64Array;
   flag: Uint8Array;
   touched: Int32Array;
   gBins: Int32Array;
   gW: Float64Array;
   gE: Float64Array;
+  fE: Float32Array;
 }
 
 const scratchCache = new Map<number, Scratch>();
@@ -65,28 +71,26 @@ function scratchFor(seg: Segment): Scratch {
   if (!s) {
     if (scratchCache.size >= 2) scratchCache.delete(scratchCache.keys().next().value as number);
     s = {
-      acc: new Float64Array(seg.n),
-      acc2: null,
-      cnt: new Uint16Array(seg.n),
+      st: new Float64Array(seg.n * 4),
       flag: new Uint8Array(seg.n),
       touched: new Int32Array(seg.n),
       gBins: new Int32Array(seg.maxDocPeaks),
       gW: new Float64Array(seg.maxDocPeaks),
       gE: new Float64Array(seg.maxDocPeaks),
+      fE: new Float32Array(seg.maxDocPeaks),
     };
     scratchCache.set(seg.id, s);
   }
   return s;
 }
 
-/** First posting index in [from, to) whose doc is >= lo. */
-function lowerBound(pDoc: Uint32Array, from: number, to: number, lo: number): number {
-  if (lo <= 0) return from;
+/** First posting index in [from, to) whose doc is >= doc. */
+function lowerBound(pDoc: Uint32Array, from: number, to: number, doc: number): number {
   let a = from;
   let b = to;
   while (a < b) {
     const m = (a + b) >>> 1;
-    if (pDoc[m] < lo) a = m + 1;
+    if (pDoc[m] < doc) a = m + 1;
     else b = m;
   }
   return a;
@@ -97,7 +101,9 @@ function evaluate(seg: Segment, q: PreparedSpectrum, d: number, generic: Generic
   const s = seg.docStart[d];
   const e = seg.docStart[d + 1];
   if (generic === null) {
-    scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fE, s, e, seg.docNorm[d], withEntropy, out, at);
+    if (withEntropy) entropyWeightsInto(seg.fRel.subarray(s, e), sc.fE);
+    // sc.fE is indexed from 0, the forward arrays from s: pass a view that lines up.
+    scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin.subarray(s, e), seg.fW.subarray(s, e), sc.fE, 0, e - s, seg.docNorm[d], withEntropy, out, at);
   } else {
     const g = stageInto(seg.fBin, seg.fRel, s, e, generic.tolerance, generic.weights, generic.noiseFloor, generic.lowMassCutoff, generic.excludeBins, sc.gBins, sc.gW, sc.gE);
     scoreMerged(q.bins, q.w, q.e, q.n, q.norm, sc.gBins, sc.gW, sc.gE, 0, g.n, g.norm, withEntropy, out, at);
@@ -120,24 +126,28 @@ function finish(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: Scratch,
 /**
  * Exact top-k of one prepared query over a doc range of a segment, by the
  * ranking score, ties by doc (= record id) order. Only docs sharing at least
- * one bin with the query are hits.
+ * one bin with the query are hits. The k-th score only ever comes from
+ * exact scores (scoreMerged, as the brute-force reference computes them), and
+ * a doc is skipped only when a bound shows it cannot reach it, so the result
+ * equals the brute-force one.
  *
- * Stored weights and rankBy cosine, composite or entropy: MaxScore-style
- * pruning. Query bins are taken from the heaviest bound down; a doc not seen
- * in the bins processed so far can score at most ub(R, M), with R a bound on
- * the rest of the dot product (the smaller of the sum of per-bin maxima and
- * the Euclidean norm of the remaining query weights, by Cauchy-Schwarz) and
- * M the number of remaining bins. For the composite, ub(s, c) =
- * (N_U s^2 + c) / (N_U + c) bounds (N_U F_D + N_UL F_R) / (N_U + N_UL) since
- * F_R <= 1 and the expression grows with N_UL. Once ub(R, M) falls below the
- * k-th exact score found so far, no new doc is admitted; every seen doc whose
- * own bound still reaches the k-th score is scored exactly from the forward
- * storage, best bound first. The k-th score only ever comes from exact
- * scores, so the result equals the brute-force one.
- *
- * Reverse cosine has no useful bound (a library spectrum made of a few of the
- * query's light peaks scores 1), so it takes a full pass, accumulating both of
- * its sums, and rescoring exactly every doc within EPS of the k-th.
+ * - cosine: MaxScore. Query bins go from the heaviest bound (query weight x
+ *   the bin's largest stored weight) down. A doc not seen yet can score at
+ *   most R, the smaller of the remaining per-bin bounds' sum and the
+ *   Euclidean norm of the remaining query weights (Cauchy-Schwarz, stored
+ *   weights have unit norm). Once R is below the k-th exact score no new doc
+ *   is admitted; the remaining bins update the docs already seen as long as
+ *   that is cheaper than rescoring them, then every seen doc whose bound
+ *   (partial dot + R) still reaches the k-th score is rescored exactly, best
+ *   bound first.
+ * - composite, entropy, reverse cosine: one pass over the query's postings
+ *   in m/z order gives each doc's score from the stored weights (the
+ *   composite's ratio term too, as adjacent shared peaks arrive in m/z
+ *   order); every doc within 2 EPS of the k-th of these is rescored
+ *   exactly. Their bounds do not prune on EI data: the composite's ratio
+ *   term (at most 1) lets a spectrum sharing many light peaks reach about
+ *   0.5 whatever its dot product, and a library spectrum made of a few of
+ *   the query's light peaks has a reverse cosine of 1.
  */
 export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams): KernelResult {
   const sc = scratchFor(seg);
@@ -147,39 +157,45 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
   if (q.n === 0 || hi <= lo || seg.n === 0) return finish(seg, q, p, sc, heap, 0, 0);
   const { allow, penalty, rankBy } = p;
   const slot = SCORE_SLOT[rankBy];
-  const { pStart, pDoc, pW, binMaxW, binMaxE, docStart } = seg;
-  const { acc, cnt, flag, touched } = sc;
+  const { pStart, pDoc, pW, pE, binMaxW, docStart } = seg;
+  const { st, flag, touched } = sc;
   const out = new Float64Array(4);
   let nTouched = 0;
   let postings = 0;
   let evaluated = 0;
 
-  // The query's bins that have postings, with their bounds.
+  // The query's bins that have postings in the range, in m/z order, with their posting spans.
   const tBin: number[] = [];
   const tQ: number[] = [];
-  const tU: number[] = [];
+  const tA: number[] = [];
+  const tFrom: number[] = [];
+  const tTo: number[] = [];
   for (let i = 0; i < q.n; i++) {
     const b = q.bins[i];
-    if (b < 0 || b >= seg.nBins || pStart[b + 1] === pStart[b]) continue;
-    const x = q.w[i] / q.norm;
+    if (b < 0 || b >= seg.nBins) continue;
+    let from = pStart[b];
+    let to = pStart[b + 1];
+    if (from === to) continue;
+    if (lo > 0) from = lowerBound(pDoc, from, to, lo);
+    if (hi < seg.n) to = lowerBound(pDoc, from, to, hi);
+    if (from === to) continue;
     tBin.push(b);
-    tQ.push(x);
-    if (rankBy === 'entropy') {
-      const a = q.e[i];
-      const m = binMaxE[b];
-      tU.push(a > 0 && m > 0 ? ((a + m) * Math.log(a + m) - a * Math.log(a) - m * Math.log(m)) / LN4 : 0);
-    } else tU.push(x * binMaxW[b]);
+    tQ.push(q.w[i] / q.norm);
+    tA.push(q.e[i]);
+    tFrom.push(from);
+    tTo.push(to);
   }
   const T = tBin.length;
-  const order = Array.from({ length: T }, (_, i) => i).sort((a, b) => tU[b] - tU[a] || tBin[a] - tBin[b]);
 
   const reset = () => {
     for (let t = 0; t < nTouched; t++) {
       const d = touched[t];
-      acc[d] = 0;
-      cnt[d] = 0;
+      const o = d << 2;
+      st[o] = 0;
+      st[o + 1] = 0;
+      st[o + 2] = 0;
+      st[o + 3] = 0;
       flag[d] = 0;
-      if (sc.acc2) sc.acc2[d] = 0;
     }
   };
   const scoreDoc = (d: number) => {
@@ -191,66 +207,118 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
       heap.push(allow[d] === 2 ? Math.max(0, raw - penalty) : raw, d);
     }
   };
+  const done = () => {
+    const r = finish(seg, q, p, sc, heap, postings, evaluated);
+    reset();
+    return r;
+  };
 
-  // Generic options: the stored weights do not apply, so score every doc that shares a bin.
+  // Other options than the stored ones: rescore every doc that shares a bin.
   if (p.generic !== null) {
     for (let t = 0; t < T; t++) {
-      const b = tBin[t];
-      const end = pStart[b + 1];
-      for (let j = lowerBound(pDoc, pStart[b], end, lo); j < end; j++) {
+      for (let j = tFrom[t], end = tTo[t]; j < end; j++) {
         const d = pDoc[j];
-        if (d >= hi) break;
-        postings++;
-        if (allow[d] === 0 || cnt[d] !== 0) continue;
-        cnt[d] = 1;
+        if (allow[d] === 0 || st[(d << 2) + 3] !== 0) continue;
+        st[(d << 2) + 3] = 1;
         touched[nTouched++] = d;
       }
+      postings += tTo[t] - tFrom[t];
     }
     for (let t = 0; t < nTouched; t++) scoreDoc(touched[t]);
-    const r = finish(seg, q, p, sc, heap, postings, evaluated);
-    reset();
-    return r;
+    return done();
   }
 
-  if (rankBy === 'reverseCosine') {
-    if (!sc.acc2) sc.acc2 = new Float64Array(seg.n);
-    const acc2 = sc.acc2;
-    for (let t = 0; t < T; t++) {
-      const b = tBin[t];
-      const x = tQ[t];
-      const xx = x * x;
-      const end = pStart[b + 1];
-      for (let j = lowerBound(pDoc, pStart[b], end, lo); j < end; j++) {
-        const d = pDoc[j];
-        if (d >= hi) break;
-        postings++;
-        if (allow[d] === 0) continue;
-        if (cnt[d] === 0) touched[nTouched++] = d;
-        cnt[d] = 1;
-        acc[d] += x * pW[j];
-        acc2[d] += xx;
+  if (rankBy !== 'cosine') {
+    // One pass in m/z order, block by block of docs so the per-doc state of a
+    // block stays in cache (postings are sorted by doc, one cursor per bin).
+    const cur = tFrom.slice();
+    for (let t = 0; t < T; t++) postings += tTo[t] - tFrom[t];
+    for (let blockEnd = lo + BLOCK; ; blockEnd += BLOCK) {
+      const stop = Math.min(blockEnd, hi);
+      for (let t = 0; t < T; t++) {
+        const x = tQ[t];
+        const end = tTo[t];
+        let j = cur[t];
+        if (rankBy === 'composite') {
+          const invX = 1 / x;
+          for (; j < end; j++) {
+            const d = pDoc[j];
+            if (d >= stop) break;
+            if (allow[d] === 0) continue;
+            const w = pW[j];
+            const rho = w * invX;
+            const o = d << 2;
+            const c = st[o + 3];
+            if (c === 0) touched[nTouched++] = d;
+            else {
+              const r = rho / st[o + 2];
+              st[o + 1] += r <= 1 ? r : 1 / r;
+            }
+            st[o + 2] = rho;
+            st[o + 3] = c + 1;
+            st[o] += x * w;
+          }
+        } else if (rankBy === 'reverseCosine') {
+          const xx = x * x;
+          for (; j < end; j++) {
+            const d = pDoc[j];
+            if (d >= stop) break;
+            if (allow[d] === 0) continue;
+            const o = d << 2;
+            if (st[o + 3] === 0) {
+              touched[nTouched++] = d;
+              st[o + 3] = 1;
+            }
+            st[o] += x * pW[j];
+            st[o + 1] += xx;
+          }
+        } else {
+          const a = tA[t];
+          const aLnA = a > 0 ? a * Math.log(a) : 0;
+          for (; j < end; j++) {
+            const d = pDoc[j];
+            if (d >= stop) break;
+            if (allow[d] === 0) continue;
+            const o = d << 2;
+            if (st[o + 3] === 0) {
+              touched[nTouched++] = d;
+              st[o + 3] = 1;
+            }
+            const b = pE[j];
+            if (a > 0 && b > 0) st[o] += (a + b) * Math.log(a + b) - aLnA - b * Math.log(b);
+          }
+        }
+        cur[t] = j;
       }
+      if (stop >= hi) break;
     }
-    const approxTop = new TopK(p.k);
-    const approx = (d: number) => {
-      const v = acc2[d] > 0 ? acc[d] / Math.sqrt(acc2[d]) : 0;
+    const nU = q.n;
+    const approx = (d: number): number => {
+      let v: number;
+      const o = d << 2;
+      if (rankBy === 'composite') {
+        const cos = Math.min(1, st[o]);
+        const fD = cos * cos;
+        const c = st[o + 3];
+        v = c < 2 ? fD : (nU * fD + c * (st[o + 1] / (c - 1))) / (nU + c);
+      } else if (rankBy === 'reverseCosine') v = st[o + 1] > 0 ? st[o] / Math.sqrt(st[o + 1]) : 0;
+      else v = st[o] / LN4;
       return allow[d] === 2 ? Math.max(0, v - penalty) : v;
     };
-    for (let t = 0; t < nTouched; t++) approxTop.push(approx(touched[t]), touched[t]);
-    const theta = approxTop.threshold();
+    const top = new TopK(p.k);
+    const vals = new Float64Array(nTouched);
     for (let t = 0; t < nTouched; t++) {
-      const d = touched[t];
-      if (p.noPruning || approx(d) >= theta - 2 * EPS) scoreDoc(d);
+      vals[t] = approx(touched[t]);
+      top.push(vals[t], touched[t]);
     }
-    const r = finish(seg, q, p, sc, heap, postings, evaluated);
-    reset();
-    return r;
+    const theta = top.threshold() - 2 * EPS;
+    for (let t = 0; t < nTouched; t++) if (vals[t] >= theta) scoreDoc(touched[t]);
+    return done();
   }
 
-  const nU = q.n;
-  const composite = rankBy === 'composite';
-  const cosineLike = rankBy !== 'entropy';
-  // Suffix bounds R[p] over the terms order[p..T-1].
+  // Cosine: MaxScore.
+  const tU = tQ.map((x, t) => x * binMaxW[tBin[t]]);
+  const order = Array.from({ length: T }, (_, i) => i).sort((a, b) => tU[b] - tU[a] || tBin[a] - tBin[b]);
   const R = new Float64Array(T + 1);
   {
     let s1 = 0;
@@ -259,42 +327,35 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
       const t = order[i];
       s1 += tU[t];
       s2 += tQ[t] * tQ[t];
-      R[i] = cosineLike ? Math.min(s1, Math.sqrt(s2)) : s1;
+      R[i] = Math.min(s1, Math.sqrt(s2));
     }
   }
-  const ub = (s: number, c: number): number => {
-    if (!composite) return s;
-    const f = Math.min(1, s);
-    return c >= 2 ? (nU * f * f + c) / (nU + c) : f * f;
-  };
-
-  // Refresh the k-th exact score from the most promising seen docs.
+  // Score the most promising seen docs exactly, to raise the k-th score.
   const refresh = () => {
     const pick = new TopK(p.k);
     for (let t = 0; t < nTouched; t++) {
       const d = touched[t];
-      if (flag[d]) continue;
-      pick.push(composite ? nU * acc[d] * acc[d] + cnt[d] : acc[d], d);
+      if (!flag[d]) pick.push(st[d << 2], d);
     }
     for (let i = 0; i < pick.size; i++) scoreDoc(pick.doc[i]);
   };
-
+  const theta = () => (p.noPruning ? -Infinity : heap.threshold() - EPS);
   let pos = 0;
   let nextRefresh = 1;
-  while (pos < T) {
-    if (!p.noPruning && ub(R[pos], Math.min(T - pos, seg.maxDocPeaks)) < heap.threshold() - EPS) break;
+  while (pos < T && R[pos] >= theta()) {
     const t = order[pos];
-    const b = tBin[t];
-    const inc = cosineLike ? tQ[t] : tU[t];
-    const end = pStart[b + 1];
-    for (let j = lowerBound(pDoc, pStart[b], end, lo); j < end; j++) {
+    const x = tQ[t];
+    const end = tTo[t];
+    postings += end - tFrom[t];
+    for (let j = tFrom[t]; j < end; j++) {
       const d = pDoc[j];
-      if (d >= hi) break;
-      postings++;
       if (allow[d] === 0) continue;
-      if (cnt[d] === 0) touched[nTouched++] = d;
-      cnt[d]++;
-      acc[d] += cosineLike ? inc * pW[j] : inc;
+      const o = d << 2;
+      if (st[o + 3] === 0) {
+        touched[nTouched++] = d;
+        st[o + 3] = 1;
+      }
+      st[o] += x * pW[j];
     }
     pos++;
     if (pos === nextRefresh) {
@@ -302,51 +363,54 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
       nextRefresh *= 2;
     }
   }
-
-  // Verification: every seen doc whose bound still reaches the k-th score is scored exactly.
-  const rest = R[pos];
-  const left = T - pos;
-  const bound = (d: number) => {
-    const c = Math.min(cnt[d] + left, docStart[d + 1] - docStart[d]);
-    const v = ub(acc[d] + rest, c);
-    return allow[d] === 2 ? v - penalty : v;
-  };
-  let candDocs = new Int32Array(0);
-  let candUb = new Float64Array(0);
-  for (let round = 0; ; round++) {
-    const theta = p.noPruning ? -Infinity : heap.threshold() - EPS;
-    let m = 0;
-    const cd: number[] = [];
-    const cu: number[] = [];
+  refresh();
+  // No new doc can make it now. Update the seen docs with further bins while a
+  // bin's postings cost less than the rescoring they could spare (estimated
+  // from a histogram of the partial dots taken once, as they only grow).
+  const H = 1024;
+  const hist = new Float64Array(H + 1);
+  if (pos < T) {
     for (let t = 0; t < nTouched; t++) {
       const d = touched[t];
-      if (flag[d]) continue;
-      const v = bound(d);
-      if (v >= theta) {
-        cd.push(d);
-        cu.push(v);
-        m++;
-      }
+      if (!flag[d]) hist[Math.min(H, Math.max(0, Math.floor(st[d << 2] * H)))]++;
     }
-    if (m <= 4096 || round >= 3 || p.noPruning) {
-      candDocs = Int32Array.from(cd);
-      candUb = Float64Array.from(cu);
-      break;
-    }
-    // Too many: score the k best bounds first to raise the k-th score, then filter again.
-    const pick = new TopK(p.k);
-    for (let i = 0; i < m; i++) pick.push(cu[i], cd[i]);
-    for (let i = 0; i < pick.size; i++) scoreDoc(pick.doc[i]);
+    for (let i = H - 1; i >= 0; i--) hist[i] += hist[i + 1];
   }
-  const idx = Array.from({ length: candDocs.length }, (_, i) => i).sort((a, b) => candUb[b] - candUb[a]);
+  const estimate = (rest: number) => hist[Math.min(H, Math.max(0, Math.floor((theta() - rest) * H)))];
+  let pending = pos < T ? estimate(R[pos]) : 0;
+  while (pos < T && pending * EVAL_COST > tTo[order[pos]] - tFrom[order[pos]]) {
+    const t = order[pos];
+    const x = tQ[t];
+    const end = tTo[t];
+    postings += end - tFrom[t];
+    for (let j = tFrom[t]; j < end; j++) {
+      const d = pDoc[j];
+      const o = d << 2;
+      if (st[o + 3] === 0) continue;
+      st[o] += x * pW[j];
+    }
+    pos++;
+    pending = pos < T ? estimate(R[pos]) : 0;
+  }
+  const rest = R[pos];
+  const th = theta();
+  const cd: number[] = [];
+  const cu: number[] = [];
+  for (let t = 0; t < nTouched; t++) {
+    const d = touched[t];
+    if (flag[d]) continue;
+    const v = st[d << 2] + rest - (allow[d] === 2 ? penalty : 0);
+    if (v >= th) {
+      cd.push(d);
+      cu.push(v);
+    }
+  }
+  const idx = Array.from({ length: cd.length }, (_, i) => i).sort((a, b) => cu[b] - cu[a]);
   for (const i of idx) {
-    if (!p.noPruning && candUb[i] < heap.threshold() - EPS) break;
-    const d = candDocs[i];
-    if (!flag[d]) scoreDoc(d);
+    if (cu[i] < theta()) break;
+    scoreDoc(cd[i]);
   }
-  const r = finish(seg, q, p, sc, heap, postings, evaluated);
-  reset();
-  return r;
+  return done();
 }
 
 /** Reference over a segment: score every allowed doc in the range exactly (no index, no pruning). */

@@ -36,8 +36,6 @@ export interface Segment {
   fBin: Uint16Array | Int32Array;
   /** Unit-norm m/z^a * I^b weights. */
   fW: Float32Array;
-  /** Entropy intensities (Li et al. 2021 preprocessing), summing to 1 per doc. */
-  fE: Float32Array;
   /** Intensity relative to the base peak, for searches with other options. */
   fRel: Float32Array;
   /** sqrt(sum fW^2) per doc as stored. */
@@ -48,6 +46,8 @@ export interface Segment {
   pStart: Uint32Array;
   pDoc: Uint32Array;
   pW: Float32Array;
+  /** Entropy intensities (Li et al. 2021 preprocessing, summing to 1 per doc), per posting. */
+  pE: Float32Array;
   binMaxW: Float32Array;
   binMaxE: Float32Array;
   /** 1 while a doc is current, 0 once removed or replaced (shared, mutable). */
@@ -90,7 +90,7 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
   const docStart = shared(Uint32Array, count + 1);
   const fBin = nBins <= 65536 ? shared(Uint16Array, nPeaks) : shared(Int32Array, nPeaks);
   const fW = shared(Float32Array, nPeaks);
-  const fE = shared(Float32Array, nPeaks);
+  const fE = new Float32Array(nPeaks); // only to fill the postings; the forward side recomputes it from fRel
   const fRel = shared(Float32Array, nPeaks);
   const docNorm = shared(Float64Array, count);
   const recordId = shared(Float64Array, count);
@@ -132,6 +132,7 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
   pStart[nBins] = acc;
   const pDoc = shared(Uint32Array, at);
   const pW = shared(Float32Array, at);
+  const pE = shared(Float32Array, at);
   const binMaxW = shared(Float32Array, nBins);
   const binMaxE = shared(Float32Array, nBins);
   const fill = binCount; // reuse as a cursor per bin
@@ -143,6 +144,7 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
       pDoc[k] = d;
       const w = fW[j];
       pW[k] = w;
+      pE[k] = fE[j];
       if (w > binMaxW[b]) binMaxW[b] = w;
       if (fE[j] > binMaxE[b]) binMaxE[b] = fE[j];
     }
@@ -158,7 +160,6 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
     docStart,
     fBin,
     fW,
-    fE,
     fRel,
     docNorm,
     recordId,
@@ -166,6 +167,7 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
     pStart,
     pDoc,
     pW,
+    pE,
     binMaxW,
     binMaxE,
     live,
@@ -174,7 +176,7 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
 
 /** Bytes held by a segment's typed arrays (forward storage, postings and per-doc columns). */
 export function segmentBytes(seg: Segment): number {
-  const arrays = [seg.docStart, seg.fBin, seg.fW, seg.fE, seg.fRel, seg.docNorm, seg.recordId, seg.spectrumId, seg.pStart, seg.pDoc, seg.pW, seg.binMaxW, seg.binMaxE, seg.live];
+  const arrays = [seg.docStart, seg.fBin, seg.fW, seg.fRel, seg.docNorm, seg.recordId, seg.spectrumId, seg.pStart, seg.pDoc, seg.pW, seg.pE, seg.binMaxW, seg.binMaxE, seg.live];
   let bytes = 0;
   for (const a of arrays) bytes += a.byteLength;
   return bytes;

@@ -1,0 +1,62 @@
+// Shared helpers for the search tests: a seeded PRNG and random libraries.
+import type { LibraryEntry, Peak, SpectrumStatus } from '../../../src/lib/search/types';
+
+export function rng(seed: number): () => number {
+  let s = seed >>> 0;
+  return () => {
+    s = (s + 0x6d2b79f5) >>> 0;
+    let t = s;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const STATUSES: SpectrumStatus[] = ['released', 'released', 'released', 'in_review', 'draft'];
+const TAGS = ['solvent', 'impurity', 'flavour'];
+
+/** A random library with families of similar spectra, coarse intensities (so ties occur) and varied metadata. */
+export function randomLibrary(seed: number, count: number): LibraryEntry[] {
+  const r = rng(seed);
+  const entries: LibraryEntry[] = [];
+  let parent: Peak[] = [];
+  for (let i = 0; i < count; i++) {
+    let peaks: Peak[];
+    if (i > 0 && r() < 0.4) {
+      peaks = parent.map(([mz, v]) => [mz, r() < 0.2 ? Math.max(1, Math.round(v * (0.5 + r()))) : v] as Peak);
+      if (r() < 0.5) peaks.push([30 + Math.floor(r() * 200), 1 + Math.floor(r() * 50)]);
+    } else {
+      peaks = [];
+      const n = 1 + Math.floor(r() * 30);
+      for (let j = 0; j < n; j++) peaks.push([30 + Math.floor(r() ** 2 * 250) + (r() < 0.1 ? 0.3 : 0), 1 + Math.floor(r() ** 2 * 20) * 50]);
+      parent = peaks;
+    }
+    entries.push({
+      spectrumId: 1000 + i,
+      recordId: 1 + Math.floor(r() * count * 0.8),
+      version: 1,
+      name: `spectrum ${i}`,
+      formula: r() < 0.5 ? 'C6H6' : r() < 0.5 ? 'C7H8' : null,
+      nominalMass: r() < 0.9 ? 40 + Math.floor(r() * 200) : null,
+      ihd: r() < 0.9 ? Math.floor(r() * 6) : null,
+      elements: r() < 0.3 ? ['C', 'H', 'Cl'] : ['C', 'H'],
+      tags: TAGS.filter(() => r() < 0.3),
+      status: STATUSES[Math.floor(r() * STATUSES.length)],
+      ri: r() < 0.7 ? [{ phase: 'non-polar', value: 800 + Math.floor(r() * 800) }] : [],
+      peaks,
+    });
+  }
+  return entries;
+}
+
+/** A query made from a library spectrum with noise and an extra peak. */
+export function noisyQuery(r: () => number, peaks: Peak[]): Peak[] {
+  const q: Peak[] = peaks.filter(() => r() > 0.1).map(([mz, v]) => [mz, v * (0.6 + 0.8 * r())]);
+  q.push([30 + Math.floor(r() * 250), 5 + r() * 100]);
+  return q;
+}
+
+/** Hits as comparable strings: id and exact score. */
+export function keyOf(hits: { spectrumId: number; score: number }[]): string[] {
+  return hits.map((h) => `${h.spectrumId}:${h.score}`);
+}

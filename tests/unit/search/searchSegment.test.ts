@@ -1,0 +1,58 @@
+import { describe, expect, it } from 'vitest';
+import { SearchIndex } from '../../../src/lib/search/SearchIndex';
+import { resolveSearchOptions } from '../../../src/lib/search/options';
+import { prepareQuery } from '../../../src/lib/search/prepare';
+import { bruteForceSegment, searchSegment, type KernelParams } from '../../../src/lib/search/searchSegment';
+import { SCORE_NAMES } from '../../../src/lib/search/types';
+import { noisyQuery, randomLibrary, rng } from './helpers';
+
+const asKeys = (r: { docs: Int32Array; rank: Float64Array }) => Array.from(r.docs, (d, i) => `${d}:${r.rank[i]}`);
+
+describe('searchSegment', () => {
+  it('pruning never changes the top-k: pruned = unpruned = brute force (seeded libraries and queries)', () => {
+    for (let seed = 1; seed <= 5; seed++) {
+      const entries = randomLibrary(seed + 100, 800).map((e) => ({ ...e, status: 'released' as const }));
+      const seg = SearchIndex.build(entries).segment;
+      const r = rng(seed);
+      for (let qi = 0; qi < 10; qi++) {
+        const peaks = noisyQuery(r, entries[Math.floor(r() * entries.length)].peaks);
+        for (const rankBy of SCORE_NAMES) {
+          const o = resolveSearchOptions({ rankBy, limit: 1 + Math.floor(r() * 60) });
+          const q = prepareQuery(peaks, o);
+          const params: KernelParams = { k: o.limit, rankBy, allow: seg.live, penalty: 0, lo: 0, hi: seg.n, generic: null };
+          const pruned = searchSegment(seg, q, params);
+          const full = searchSegment(seg, q, { ...params, noPruning: true });
+          const brute = bruteForceSegment(seg, q, params);
+          expect(asKeys(pruned)).toEqual(asKeys(brute));
+          expect(asKeys(full)).toEqual(asKeys(brute));
+          expect(Array.from(pruned.scores)).toEqual(Array.from(brute.scores));
+        }
+      }
+    }
+  });
+
+  it('reads fewer postings with pruning on m/z^3-weighted cosine', () => {
+    const entries = randomLibrary(7, 2000).map((e) => ({ ...e, status: 'released' as const }));
+    const seg = SearchIndex.build(entries).segment;
+    const o = resolveSearchOptions({ rankBy: 'cosine', limit: 5 });
+    const q = prepareQuery(entries[3].peaks, o);
+    const params: KernelParams = { k: 5, rankBy: 'cosine', allow: seg.live, penalty: 0, lo: 0, hi: seg.n, generic: null };
+    expect(searchSegment(seg, q, params).postings).toBeLessThan(searchSegment(seg, q, { ...params, noPruning: true }).postings);
+  });
+
+  it('gives the same top-k when the docs are split into ranges and merged', () => {
+    const entries = randomLibrary(3, 500).map((e) => ({ ...e, status: 'released' as const }));
+    const seg = SearchIndex.build(entries).segment;
+    const o = resolveSearchOptions({ rankBy: 'composite', limit: 20 });
+    const q = prepareQuery(noisyQuery(rng(2), entries[10].peaks), o);
+    const base: KernelParams = { k: 20, rankBy: 'composite', allow: seg.live, penalty: 0, lo: 0, hi: seg.n, generic: null };
+    const whole = searchSegment(seg, q, base);
+    const parts = [searchSegment(seg, q, { ...base, hi: 200 }), searchSegment(seg, q, { ...base, lo: 200 })];
+    const merged = parts
+      .flatMap((p) => Array.from(p.docs, (d, i) => ({ d, s: p.rank[i] })))
+      .sort((a, b) => b.s - a.s || a.d - b.d)
+      .slice(0, 20)
+      .map((x) => `${x.d}:${x.s}`);
+    expect(merged).toEqual(asKeys(whole));
+  });
+});
