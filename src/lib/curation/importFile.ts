@@ -69,6 +69,8 @@ interface Entry {
 }
 
 const MAX_SOURCE_TEXT = 1024 * 1024;
+/** Beyond any mass spectrometer's range: such an m/z is a damaged number, not a peak. */
+export const MAX_MZ = 100_000;
 
 function clip(value: string | null | undefined, max: number): string | null {
   if (value === null || value === undefined) return null;
@@ -119,6 +121,12 @@ export async function importFile(opts: ImportFileOptions): Promise<ImportFileRes
   else return reject('the file is empty');
   const read = readJcamp(text, { fileName });
   if (!read.ok) return reject(read.error);
+  for (const [k, spectrum] of read.spectra.entries()) {
+    const top = spectrum.peaks.reduce((m, [mz]) => (mz > m ? mz : m), 0);
+    if (top > MAX_MZ) {
+      return reject(`spectrum ${k + 1}${spectrum.page !== null ? ` (page ${spectrum.page})` : ''}: m/z ${top} is beyond ${MAX_MZ}, not a plausible peak`);
+    }
+  }
 
   let ordinal = 0;
   const all = read.spectra.map((spectrum, i) => ({ spectrum, index: i + 1, page: spectrum.page !== null ? ++ordinal : null }));

@@ -308,6 +308,7 @@ export const BAD_FILES: [string, string | Buffer, RegExp][] = [
   ['infinity.jdx', good(`Inf ${RUN}`).replace('77, 300', '77, Infinity'), /not a number/],
   ['overflow.jdx', good(`Ovf ${RUN}`).replace('77, 300', '77, 1e999'), /finite|number|not/i],
   ['negative-mz.jdx', good(`Neg ${RUN}`).replace('51, 100', '-51, 100'), /positive|m\/z/i],
+  ['huge-mz.jdx', good(`Huge ${RUN}`).replace('78, 999', '1.5e308, 999'), /beyond/],
   ['zero-mz.jdx', good(`Zero ${RUN}`).replace('51, 100', '0, 100'), /positive|m\/z/i],
   ['duplicate-label.jdx', good(`DL ${RUN}`).replace('##OWNER= test', '##OWNER= test\n##OWNER= other'), /duplicate label/i],
   ['too-many-peaks.jdx', peakTableFile({ title: `Many ${RUN}`, formula: 'C6H6', peaks: Array.from({ length: 100_001 }, (_, i) => [1 + i * 0.01, 5] as [number, number]) }), /limit|100000|100,000/i],
