@@ -64,7 +64,12 @@ export function parsePeakList(text: string, options: ParsePeakListOptions = {}):
   let splitter: RegExp = /[\s,;]+/;
 
   const first = content[0];
-  const looksLikeHeader = /[A-Za-z]/.test(first.text) && !/^[\d\s.,;:eE+-]+$/.test(first.text);
+  // A header names its columns: every field is text, or one is a known column name.
+  const headerFields = first.text.split(/\s*[\t,;]\s*|\s+/).map((h) => h.replace(/^"|"$/g, '')).filter(Boolean);
+  const looksLikeHeader =
+    !first.text.includes(':') &&
+    headerFields.length >= 1 &&
+    (headerFields.every((h) => toNumber(h) === null) || headerFields.some((h) => MZ_HEADER.test(h) || INTENSITY_HEADER.test(h)));
   if (looksLikeHeader) {
     form = 'csv';
     start = 1;

@@ -61,8 +61,14 @@ export function buildNameIndex(rows: readonly NamedRow[], options: NameIndexOpti
         return docs.filter((d) => d.cas === query).map((d) => ({ versionId: d.versionId, distance: 0 }));
       }
       return fuse.search(query).map((r) => {
+        const lower = query.toLowerCase();
+        const synonymMatches = (r.matches ?? []).filter((m) => m.key === 'synonyms').map((m) => String(m.value));
+        const nameHolds = r.item.name.toLowerCase().includes(lower);
         const nameMatched = r.matches?.some((m) => m.key === 'name');
-        const synonym = nameMatched ? undefined : r.matches?.find((m) => m.key === 'synonyms')?.value;
+        // Say which synonym matched when it, rather than the name, explains the hit.
+        const synonym = nameHolds
+          ? undefined
+          : (synonymMatches.find((v) => v.toLowerCase().includes(lower)) ?? (nameMatched ? undefined : synonymMatches[0]));
         return { versionId: r.item.versionId, distance: r.score ?? 0, ...(synonym ? { matchedSynonym: synonym } : {}) };
       });
     },
