@@ -94,3 +94,13 @@ export function expectPeaksEqual(actual: [number, number][], expected: [number, 
     }
   });
 }
+
+let casCounter = 0;
+/** A registry number of this run with a valid check digit (CAS's rule), unique per call. */
+export function uniqueCas(): string {
+  const body = String((parseInt(RUN, 16) % 900000) * 10 + (casCounter++ % 10) + 1000000).slice(-7);
+  const digits = body.replace(/^0+/, '') || '1';
+  let sum = 0;
+  for (let i = 0; i < digits.length; i++) sum += Number(digits[digits.length - 1 - i]) * (i + 1);
+  return `${digits.slice(0, -2)}-${digits.slice(-2)}-${sum % 10}`;
+}

@@ -12,7 +12,7 @@ import { readJcamp } from '../../../src/lib/spectra/readJcamp';
 import { jsonValue } from '../../../src/lib/curation/versionRow';
 import { decodeText } from '../../../src/lib/spectra/decodeText';
 import {
-  RUN, SPECTRA_FIXTURES, IMPORT_FIXTURES, createUser, libraryCounts, fixture, peakTableFile, storedPeaks, expectPeaksEqual, rng, randomPeaks,
+  RUN, SPECTRA_FIXTURES, IMPORT_FIXTURES, createUser, uniqueCas, libraryCounts, fixture, peakTableFile, storedPeaks, expectPeaksEqual, rng, randomPeaks,
 } from './helpers';
 
 const sequelize = useTestDatabase();
@@ -23,11 +23,24 @@ beforeAll(async () => {
   curator = await createUser(sequelize, 'importer', ['curator']);
 });
 
-/** Give a fixture's compound names this run's token, so rows of other test files do not interfere. */
+/**
+ * Give a fixture's compounds names and registry numbers of this run, so rows
+ * other test files made (the database is shared) are other compounds. The
+ * same peaks may still be in the library under those: such a file needs
+ * confirmation first (storeWhatever), and its warning is left out below.
+ */
+const casOf = new Map<string, string>();
 function tokenized(bytes: Buffer): Buffer {
-  const s = bytes.toString('latin1').replace(/##(TITLE|title|NAMES)=\s?/g, (m) => `${m.trimEnd()} R${RUN} `);
+  const s = bytes
+    .toString('latin1')
+    .replace(/##(TITLE|title|NAMES)=\s?/g, (m) => `${m.trimEnd()} R${RUN} `)
+    .replace(/##(CAS REGISTRY NO|cas registry no)=\s*(\S+)/g, (_m, label, cas) => {
+      if (!casOf.has(cas)) casOf.set(cas, uniqueCas());
+      return `##${label}= ${casOf.get(cas)}`;
+    });
   return Buffer.from(s, 'latin1');
 }
+const codesOf = (r: FileReport) => r.warnings.map((w) => w.code).filter((c) => c !== 'same_peaks_other_compound');
 
 async function importBytes(name: string, bytes: Buffer, pages?: 'all' | number[]): Promise<{ report: FileReport; batchId: string }> {
   const r = await runImport({ actor: curator, files: [{ name, bytes }], pages: pages ? { [name]: pages } : {} });
@@ -52,7 +65,7 @@ describe('each JCAMP-DX form, imported end to end', () => {
   it('peak table (XY..XY) with its metadata', async () => {
     const { report, ids } = await storeWhatever('peak-table-xy.jdx', tokenized(fixture(SPECTRA_FIXTURES, 'peak-table-xy.jdx')));
     expect(report.status).toBe('imported');
-    expect(report.warnings.map((w) => w.code)).toEqual([]);
+    expect(codesOf(report)).toEqual([]);
     expectPeaksEqual(await storedPeaks(sequelize, ids[0]), [[39, 120], [50, 160], [51, 185], [52, 195], [63, 30], [74, 45], [76, 60], [77, 250], [78, 999]]);
     const [v] = await sequelize.query<any>('SELECT * FROM spectrum_version WHERE recordId = ?', { replacements: [ids[0]], type: QueryTypes.SELECT });
     expect(v.name).toBe(`R${RUN} Benzene`);
@@ -60,7 +73,7 @@ describe('each JCAMP-DX form, imported end to end', () => {
     expect(v.formula).toBe('C6H6');
     expect(v.nominalMass).toBe(78);
     expect(v.ihd).toBe(4);
-    expect(v.casRegistryNo).toBe('71-43-2');
+    expect(v.casRegistryNo).toBe(casOf.get('71-43-2'));
     expect(v.ionizationEnergy).toBe(70);
     expect(v.ionizationMode).toBe('EI+');
     expect(v.instrument).toBe('Quadrupole GC-MS, bench 2');
@@ -76,9 +89,9 @@ describe('each JCAMP-DX form, imported end to end', () => {
     const { report, ids } = await storeWhatever('peak-table-xyw.jdx', tokenized(fixture(SPECTRA_FIXTURES, 'peak-table-xyw.jdx')));
     // x_factor 0.1, Y-FACTOR 2
     expectPeaksEqual(await storedPeaks(sequelize, ids[0]), [[51, 100], [77, 600], [112, 1000], [113, 34], [114, 320], [115, 10]]);
-    expect(report.warnings.map((w) => w.code)).toEqual([]);
+    expect(codesOf(report)).toEqual([]);
     const [v] = await sequelize.query<any>('SELECT formula, ionizationEnergy, casRegistryNo FROM spectrum_version WHERE recordId = ?', { replacements: [ids[0]], type: QueryTypes.SELECT });
-    expect(v).toMatchObject({ formula: 'C6H5Cl', ionizationEnergy: 70, casRegistryNo: '108-90-7' });
+    expect(v).toMatchObject({ formula: 'C6H5Cl', ionizationEnergy: 70, casRegistryNo: casOf.get('108-90-7') });
   });
 
   for (const form of ['affn', 'pac', 'sqz', 'dif', 'sqzdup', 'difdup']) {
@@ -354,6 +367,6 @@ describe('fixtures of our own', () => {
   it('a file in tests/fixtures/import imports as its README says', async () => {
     const r = await storeWhatever('chlorotoluene-xyw.jdx', tokenized(fixture(IMPORT_FIXTURES, 'chlorotoluene-xyw.jdx')));
     expectPeaksEqual(await storedPeaks(sequelize, r.ids[0]), [[63, 120], [89, 180], [91, 999], [126, 640], [127, 49], [128, 208], [129, 16]]);
-    expect(r.report.warnings.map((w) => w.code)).toEqual([]);
+    expect(codesOf(r.report)).toEqual([]);
   });
 });
