@@ -10,6 +10,11 @@ import { ensureRuntime } from './lib/runtime';
 import './lib/startup';
 import { trustedOrigins } from './lib/auth';
 
+// Astro reports route patterns in lower case (`[batchId]` → `[batchid]`), so
+// the manifest is looked up case-insensitively.
+const API_NEEDS = new Map(Object.entries(API_ROUTES).map(([k, v]) => [k.toLowerCase(), v]));
+const PAGE_NEEDS = new Map(Object.entries(PAGE_ROUTES).map(([k, v]) => [k.toLowerCase(), v]));
+
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 /**
@@ -30,14 +35,17 @@ export const onRequest = defineMiddleware(async (context, next) => {
   const { request, url } = context;
   const isApi = url.pathname.startsWith('/api/');
   const pattern = context.routePattern;
-  const need: Need | undefined = isApi ? API_ROUTES[`${request.method} ${pattern}`] : (PAGE_ROUTES[pattern] ?? 'read');
+  // A listed page path that has no page (yet) is still guarded as listed, so
+  // its answer does not depend on whether the page happens to exist.
+  const pagePattern = pattern === '/404' && PAGE_NEEDS.has(url.pathname.replace(/\/$/, '').toLowerCase()) ? url.pathname.replace(/\/$/, '').toLowerCase() : pattern;
+  const need: Need | undefined = isApi ? API_NEEDS.get(`${request.method} ${pattern}`.toLowerCase()) : (PAGE_NEEDS.get(pagePattern.toLowerCase()) ?? 'read');
 
   context.locals.user = null;
   context.locals.session = null;
   context.locals.apiKeyId = null;
 
   if (isApi && need === undefined) {
-    if (pattern === '/404' || !Object.keys(API_ROUTES).some((k) => k.endsWith(` ${pattern}`))) {
+    if (pattern === '/404' || ![...API_NEEDS.keys()].some((k) => k.endsWith(` ${pattern.toLowerCase()}`))) {
       return apiError(404, 'not_found', `No such route: ${request.method} ${url.pathname}`);
     }
     return apiError(405, 'method_not_allowed', `${request.method} is not allowed on ${url.pathname}`);

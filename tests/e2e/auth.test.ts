@@ -28,7 +28,7 @@ async function signInThroughForm(page: Page, email: string, password: string) {
   await page.waitForSelector('[data-testid=sign-in-form]');
   await page.fill('#email', email);
   await page.fill('#password', password);
-  await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 20_000 }), page.click('button[type=submit]')]);
+  await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 20_000, waitUntil: 'domcontentloaded' }), page.click('button[type=submit]')]);
 }
 
 async function auditEvents(action: string, targetId: string): Promise<any[]> {

@@ -38,6 +38,8 @@ export async function call(cred: Credential, method: string, path: string, body?
   }
   if (cred && 'key' in cred) headers.authorization = `Bearer ${cred.key}`;
   let payload: string | undefined;
+  // Astro refuses a body-less write without Origin or Content-Type (its origin check); API clients send a content type.
+  if (!(cred && 'cookie' in cred) && method !== 'GET' && method !== 'HEAD') headers['content-type'] = 'application/json';
   if (raw !== undefined) {
     headers['content-type'] = 'application/json';
     payload = raw;
