@@ -12,6 +12,7 @@ import { compoundNameKey } from '../src/lib/curation/compoundKey';
 import { DEMO_COMPOUNDS, type DemoCompound } from './compounds';
 import { compoundChemistry } from './compound-chemistry';
 import { SYNTHETIC_NOTE, seededRandom, syntheticSpectrum } from './synthetic-spectrum';
+import { seedDemoReports } from './reports';
 
 export const DEMO_LAB = 'Tarnholm Analytical, Process Chemistry Lab';
 
@@ -322,6 +323,8 @@ export async function seedDemo(sequelize: Sequelize, { password, log = () => {} 
     }
 
     await sequelize.query('UPDATE library_state SET version = 1, updatedAt = ? WHERE id = 1', { replacements: [new Date()], type: QueryTypes.UPDATE, transaction: t });
+    // Identification reports in every state (seeds/reports.ts).
+    counts.auditEvents += (await seedDemoReports(sequelize, { transaction: t, log })).auditEvents;
     counts.auditEvents++;
     await appendAudit({
       actorId: adminId, actorEmail: admin.email, action: 'demo.seed', targetType: 'library',

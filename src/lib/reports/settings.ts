@@ -71,6 +71,22 @@ function parseJson(v: unknown): unknown {
   }
 }
 
+/**
+ * A stored criteria value in the form PUT writes, also reading the nested
+ * form the demo seed wrote first ({ minScore, keyIons: { count, tolerance } }).
+ */
+export function normalizeCriteriaValue(v: unknown): Record<string, unknown> {
+  if (!v || typeof v !== 'object') return {};
+  const o = v as Record<string, any>;
+  const out: Record<string, unknown> = { ...o };
+  if (out.minimumScore === undefined && o.minScore !== undefined) out.minimumScore = o.minScore;
+  if (o.keyIons && typeof o.keyIons === 'object') {
+    if (out.keyIonCount === undefined) out.keyIonCount = o.keyIons.count;
+    if (out.keyIonTolerance === undefined) out.keyIonTolerance = o.keyIons.tolerance;
+  }
+  return out;
+}
+
 /** The acceptance criteria in force: the newest version, filled up with the defaults; version null when none was ever set. */
 export async function getAcceptanceCriteria(transaction?: Transaction): Promise<{ version: number | null; value: AcceptanceCriteria }> {
   const [row] = await getSequelize().query<{ version: number; value: unknown }>(
@@ -78,7 +94,7 @@ export async function getAcceptanceCriteria(transaction?: Transaction): Promise<
     { type: QueryTypes.SELECT, transaction },
   );
   if (!row) return { version: null, value: { ...DEFAULT_ACCEPTANCE_CRITERIA } };
-  const stored = (parseJson(row.value) ?? {}) as Record<string, unknown>;
+  const stored = normalizeCriteriaValue(parseJson(row.value));
   const merged: Record<string, unknown> = { ...DEFAULT_ACCEPTANCE_CRITERIA };
   // Keep only well-formed values of known keys, so a hand-edited row cannot break evaluation.
   for (const k of Object.keys(DEFAULT_ACCEPTANCE_CRITERIA)) {
