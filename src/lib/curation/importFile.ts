@@ -192,13 +192,15 @@ export async function importFile(opts: ImportFileOptions): Promise<ImportFileRes
         found.push(summary(e, 'skipped'));
         continue;
       }
-      const compound = await findCompound(e, t);
+      const compounds = await findCompounds(e, t);
+      const compound = compounds[0] ?? null;
+      const compoundIds = new Set(compounds.map((c) => Number(c.id)));
       const sameHash = await sequelize.query<{ recordId: number; version: number; name: string; compoundId: number }>(
         `SELECT v.recordId, v.version, v.name, r.compoundId FROM spectrum_version v JOIN spectrum_record r ON r.id = v.recordId
           WHERE v.contentHash = ? AND v.status <> 'retired' ORDER BY v.recordId, v.version LIMIT 50`,
         { replacements: [e.hash], type: QueryTypes.SELECT, transaction: t },
       );
-      const dup = compound ? sameHash.find((r) => Number(r.compoundId) === Number(compound.id)) : undefined;
+      const dup = sameHash.find((r) => compoundIds.has(Number(r.compoundId)));
       if (dup) {
         const ref = { id: Number(dup.recordId), version: Number(dup.version) };
         firstDuplicate ??= ref;
@@ -307,13 +309,13 @@ export async function importFile(opts: ImportFileOptions): Promise<ImportFileRes
   }
 }
 
-async function findCompound(e: Entry, t: Transaction): Promise<{ id: number } | null> {
+/** Compounds with the same Hill formula and the same name or registry number; the name match first. */
+async function findCompounds(e: Entry, t: Transaction): Promise<{ id: number }[]> {
   const sequelize = getSequelize();
-  const rows = await sequelize.query<{ id: number }>(
-    `SELECT id FROM compound WHERE formula <=> ? AND (nameKey = ?${e.cas ? ' OR casRegistryNo = ?' : ''}) ORDER BY id LIMIT 1`,
-    { replacements: e.cas ? [e.chem.formula, e.nameKey, e.cas] : [e.chem.formula, e.nameKey], type: QueryTypes.SELECT, transaction: t },
+  return sequelize.query<{ id: number }>(
+    `SELECT id FROM compound WHERE formula <=> ? AND (nameKey = ?${e.cas ? ' OR casRegistryNo = ?' : ''}) ORDER BY nameKey = ? DESC, id LIMIT 20`,
+    { replacements: e.cas ? [e.chem.formula, e.nameKey, e.cas, e.nameKey] : [e.chem.formula, e.nameKey, e.nameKey], type: QueryTypes.SELECT, transaction: t },
   );
-  return rows[0] ?? null;
 }
 
 async function nearDuplicate(compoundId: number, peaks: [number, number][], threshold: number, t: Transaction) {
