@@ -81,7 +81,7 @@ export const onRequest = defineMiddleware(async (context, next) => {
     if (isApi) return apiError(401, 'unauthenticated', 'Sign in first, or send an API key');
     return context.redirect(`/sign-in?next=${encodeURIComponent(url.pathname + url.search)}`, 302);
   }
-  if (need !== 'signed-in' && !can(user.roles, need)) {
+  if (need !== 'signed-in' && !can(user.roles, need ?? 'read')) {
     if (isApi) return apiError(403, 'forbidden', `Your roles (${user.roles.join(', ') || 'none'}) do not allow this (needs "${need}")`);
     return context.rewrite('/403');
   }

@@ -96,7 +96,7 @@ export function sequelizeAdapter(adapterOptions: SequelizeAdapterOptions = {}) {
   const db = adapterOptions.sequelize ?? getSequelize;
   let lazyOptions: BetterAuthOptions | null = null;
 
-  const make = (tx: Transaction | null) =>
+  const make = (tx: Transaction | null): ((options: BetterAuthOptions) => DBAdapter<BetterAuthOptions>) =>
     createAdapterFactory({
       config: {
         adapterId: 'sequelize-mariadb',
