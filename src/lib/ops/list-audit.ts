@@ -29,27 +29,33 @@ const time = z
     return d;
   });
 
-const positiveInt = (max: number, fallback?: number) =>
+const optionalInt = (max: number) =>
+  z
+    .string()
+    .optional()
+    .transform((s) => (s === undefined || s.trim() === '' ? undefined : Number(s)))
+    .pipe(z.number().int().min(1).max(max).optional());
+const intWithDefault = (max: number, fallback: number) =>
   z
     .string()
     .optional()
     .transform((s) => (s === undefined || s.trim() === '' ? fallback : Number(s)))
-    .pipe(fallback === undefined ? z.number().int().min(1).max(max).optional() : z.number().int().min(1).max(max));
+    .pipe(z.number().int().min(1).max(max));
 
 export const auditQuerySchema = z
   .object({
     /** user id or e-mail address of who acted */
     actor: z.string().trim().max(255).optional().transform((s) => s || undefined),
     /** spectrum record id */
-    record: positiveInt(2 ** 31 - 1),
-    version: positiveInt(2 ** 31 - 1),
+    record: optionalInt(2 ** 31 - 1),
+    version: optionalInt(2 ** 31 - 1),
     action: z.string().trim().max(64).regex(/^[a-z0-9_.*-]*$/i, 'an action such as record.approved (a trailing * matches a prefix)').optional().transform((s) => s || undefined),
     targetType: z.string().trim().max(32).regex(/^[a-z0-9_]*$/i, 'a target type such as record, report or user').optional().transform((s) => s || undefined),
     targetId: z.string().trim().max(64).optional().transform((s) => s || undefined),
     from: time,
     to: time,
-    page: positiveInt(1_000_000, 1),
-    pageSize: positiveInt(AUDIT_MAX_PAGE_SIZE, 100),
+    page: intWithDefault(1_000_000, 1),
+    pageSize: intWithDefault(AUDIT_MAX_PAGE_SIZE, 100),
     sort: z
       .string()
       .trim()
