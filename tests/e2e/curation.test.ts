@@ -1,0 +1,171 @@
+// In Chromium against the built server: the curator drops three JCAMP-DX
+// files on the import page, sees three progress bars reach the end and three
+// report rows, and submits the drafts; the second curator approves them on
+// the review page with the password re-entered (the first curator cannot, on
+// screen or through the API); the analyst then finds the records. Also the
+// HTTP round trip: export a record as JCAMP-DX, upload it again: duplicate.
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import crypto from 'node:crypto';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { launchBrowser, baseUrl, signInAs, watchPage, screenshot } from '../helpers/browser';
+
+let browser: Browser;
+const contexts: BrowserContext[] = [];
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  for (const c of contexts) await c.close().catch(() => {});
+  await browser?.close();
+});
+
+async function pageAs(who: string): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+  contexts.push(context);
+  const page = await context.newPage();
+  await signInAs(page, who);
+  return page;
+}
+
+const TAG = crypto.randomBytes(3).toString('hex');
+/** Three small peak-table files of invented compounds with real-looking formulas (test data, not for identification). */
+const FILES = [
+  { name: `e2e-${TAG}-1.jdx`, compound: `Curation e2e ${TAG} alpha`, formula: 'C 8 H 10', peaks: [[51, 80], [77, 140], [91, 999], [105, 310], [106, 420]] },
+  { name: `e2e-${TAG}-2.jdx`, compound: `Curation e2e ${TAG} beta`, formula: 'C 7 H 7 Cl', peaks: [[63, 110], [89, 150], [91, 999], [126, 560], [127, 45], [128, 180]] },
+  { name: `e2e-${TAG}-3.jdx`, compound: `Curation e2e ${TAG} gamma`, formula: 'C 4 H 10 O', peaks: [[31, 999], [41, 300], [45, 120], [56, 420], [59, 60], [74, 35]] },
+].map((f) => ({
+  ...f,
+  text: [
+    `##TITLE= ${f.compound}`, '##JCAMP-DX= 5.01', '##DATA TYPE= MASS SPECTRUM', '##ORIGIN= e2e tests (invented)', '##OWNER= e2e',
+    `##NAMES= ${f.compound}`, `##MOLFORM= ${f.formula}`, '##.IONIZATION ENERGY= 70', `##NPOINTS= ${f.peaks.length}`, '##PEAK TABLE= (XY..XY)',
+    ...f.peaks.map(([m, i]) => `${m}, ${i}`), '##END=', '',
+  ].join('\r\n'),
+}));
+
+describe('curation in the browser', () => {
+  let recordIds: number[] = [];
+
+  it('the curator drops three files: three progress bars reach the end, three report rows; then submits them', async () => {
+    const page = await pageAs('curator');
+    const problems = watchPage(page);
+    await page.goto(`${baseUrl()}/import`);
+    await page.waitForSelector('[data-testid=drop-zone]');
+    // wait for the island to hydrate before dropping
+    await page.waitForFunction(() => !!document.querySelector('astro-island:not([ssr])') || !document.querySelector('astro-island[ssr]'));
+    // record every value each progress bar shows, to see them move to the end
+    await page.evaluate(() => {
+      (window as any).__progress = {};
+      new MutationObserver(() => {
+        document.querySelectorAll('[data-testid=upload-row]').forEach((row) => {
+          const bar = row.querySelector('progress') as HTMLProgressElement;
+          const key = row.getAttribute('data-file')!;
+          ((window as any).__progress[key] ??= []).push(bar.value);
+        });
+      }).observe(document.body, { subtree: true, childList: true, attributes: true });
+    });
+    const dataTransfer = await page.evaluateHandle((files) => {
+      const dt = new DataTransfer();
+      for (const f of files) dt.items.add(new File([f.text], f.name, { type: 'application/octet-stream' }));
+      return dt;
+    }, FILES.map((f) => ({ name: f.name, text: f.text })));
+    await page.dispatchEvent('[data-testid=drop-zone]', 'dragover', { dataTransfer });
+    await page.dispatchEvent('[data-testid=drop-zone]', 'drop', { dataTransfer });
+
+    await page.waitForFunction(() => document.querySelectorAll('[data-testid=upload-progress][data-complete=true]').length === 3, null, { timeout: 30_000 });
+    const bars = await page.$$eval('[data-testid=upload-progress]', (els) => els.map((e) => ({ value: (e as HTMLProgressElement).value, max: (e as HTMLProgressElement).max })));
+    expect(bars).toEqual([{ value: 100, max: 100 }, { value: 100, max: 100 }, { value: 100, max: 100 }]);
+    const seen = await page.evaluate(() => (window as any).__progress as Record<string, number[]>);
+    for (const f of FILES) expect(seen[f.name]?.at(-1)).toBe(100);
+
+    const rows = page.locator('[data-testid=report-row]');
+    await expect.poll(() => rows.count()).toBe(3);
+    expect(await rows.evaluateAll((els) => els.map((e) => e.getAttribute('data-status')))).toEqual(['imported', 'imported', 'imported']);
+    const links = await page.$$eval('[data-testid=record-link]', (els) => els.map((e) => Number((e as HTMLAnchorElement).href.split('/').pop())));
+    expect(links).toHaveLength(3);
+    recordIds = links;
+    await screenshot(page, 'curation-import-report');
+
+    await page.click('[data-testid=submit-all]');
+    await page.waitForFunction(() => document.querySelectorAll('[data-testid=submitted]').length === 3, null, { timeout: 20_000 });
+    expect(problems.pageErrors).toEqual([]);
+  });
+
+  it('the curator who submitted cannot approve, on screen or through the API', async () => {
+    const page = await pageAs('curator');
+    await page.goto(`${baseUrl()}/review`);
+    for (const id of recordIds) {
+      const card = page.locator(`[data-testid=review-item][data-record-id="${id}"]`);
+      await expect.poll(() => card.count()).toBe(1);
+      expect(await card.locator('[data-testid=review-blocked]').count()).toBe(1);
+      expect(await card.locator('[data-testid=approve-open]').count()).toBe(0);
+    }
+    const res = await page.request.post(`${baseUrl()}/api/spectra/${recordIds[0]}/review`, {
+      headers: { origin: baseUrl(), 'content-type': 'application/json' }, data: { action: 'approve', password: 'ionotheca-demo' },
+    });
+    expect(res.status()).toBe(403);
+    expect((await res.json()).error.code).toBe('four_eyes');
+  });
+
+  it('the second curator approves with the password re-entered; without it the approval is refused', async () => {
+    const page = await pageAs('curator2');
+    const problems = watchPage(page);
+    const noPassword = await page.request.post(`${baseUrl()}/api/spectra/${recordIds[0]}/review`, {
+      headers: { origin: baseUrl(), 'content-type': 'application/json' }, data: { action: 'approve' },
+    });
+    expect(noPassword.status()).toBe(400);
+    const wrong = await page.request.post(`${baseUrl()}/api/spectra/${recordIds[0]}/review`, {
+      headers: { origin: baseUrl(), 'content-type': 'application/json' }, data: { action: 'approve', password: 'not-my-password-at-all' },
+    });
+    expect(wrong.status()).toBe(403);
+
+    await page.goto(`${baseUrl()}/review`);
+    for (const id of recordIds) {
+      const card = page.locator(`[data-testid=review-item][data-record-id="${id}"]`);
+      await card.waitFor();
+      expect(await card.locator('[data-testid=review-diff] [data-field=name]').count()).toBe(1);
+      await card.locator('[data-testid=approve-open]').click();
+      await card.locator('[data-testid=approve-sign]').click();
+      await expect.poll(() => card.locator('[data-testid=review-error]').textContent()).toMatch(/password/i);
+      await card.locator('[data-testid=approve-password]').fill('ionotheca-demo');
+      await card.locator('[data-testid=approve-sign]').click();
+      await expect.poll(() => card.count(), { timeout: 15_000 }).toBe(0);
+    }
+    const done = await page.locator('[data-testid=review-done] li').allTextContents();
+    expect(done.filter((t) => /released: signed by/.test(t))).toHaveLength(3);
+    await screenshot(page, 'curation-review-approved');
+    expect(problems.pageErrors).toEqual([]);
+  });
+
+  it('the analyst can then find the released records', async () => {
+    const page = await pageAs('analyst');
+    for (const f of FILES) {
+      await expect.poll(async () => {
+        const res = await page.request.get(`${baseUrl()}/api/spectra?q=${encodeURIComponent(f.compound)}`);
+        const body = await res.json();
+        return (body.items ?? []).filter((x: any) => x.name === f.compound).map((x: any) => x.status);
+      }, { timeout: 10_000 }).toEqual(['released']);
+    }
+    const r = await page.request.get(`${baseUrl()}/api/spectra/${recordIds[0]}`);
+    expect(r.status()).toBe(200);
+    expect((await r.json()).status).toBe('released');
+  });
+
+  it('export as JCAMP-DX and upload again: reported as a duplicate of the record', async () => {
+    const analyst = await pageAs('analyst');
+    const exp = await analyst.request.get(`${baseUrl()}/api/spectra/${recordIds[1]}/jcamp`);
+    expect(exp.status()).toBe(200);
+    const text = await exp.text();
+    expect(text).toContain('##JCAMP-DX=5.01');
+    expect(text).toContain(FILES[1].compound);
+    const curator = await pageAs('curator');
+    const up = await curator.request.post(`${baseUrl()}/api/imports`, {
+      headers: { origin: baseUrl() },
+      multipart: { files: { name: 'exported.jdx', mimeType: 'image/png', buffer: Buffer.from(text) } },
+    });
+    expect(up.status()).toBe(200);
+    const body = await up.json();
+    expect(body.files[0]).toMatchObject({ file: 'exported.jdx', status: 'duplicate', duplicateOf: recordIds[1] });
+    const batch = await curator.request.get(`${baseUrl()}/api/imports/${body.batchId}`);
+    expect((await batch.json()).files[0].status).toBe('duplicate');
+  });
+});
