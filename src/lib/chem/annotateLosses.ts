@@ -1,4 +1,5 @@
 import { commonLosses, type LossComposition } from './commonLosses';
+import { parseFormula } from './parseFormula';
 import { toUnitSpectrum, type UnitSpectrum } from './toUnitSpectrum';
 import type { Peak } from './types';
 
@@ -8,6 +9,13 @@ export interface AnnotateLossesOptions {
    * @default 1
    */
   minRelative?: number;
+  /**
+   * The compound's formula, when known: only losses that the formula can
+   * afford (every element of the loss present in at least that number) are
+   * kept, so an alkane is not annotated with losses of O or F.
+   * @default undefined (no restriction)
+   */
+  formula?: string;
 }
 
 export interface LossAnnotation {
@@ -36,7 +44,20 @@ export function annotateLosses(
   mMz: number,
   options: AnnotateLossesOptions = {},
 ): LossAnnotation[] {
-  const { minRelative = 1 } = options;
+  const { minRelative = 1, formula } = options;
+  let available: Record<string, number> | null = null;
+  if (formula) {
+    try {
+      available = parseFormula(formula).elements;
+    } catch {
+      available = null; // an unreadable formula restricts nothing
+    }
+  }
+  const affordable = (c: LossComposition) => {
+    if (!available) return true;
+    const need = parseFormula(c.formula).elements;
+    return Object.entries(need).every(([el, n]) => (available[el] ?? 0) >= (n as number));
+  };
   if (!(minRelative >= 0 && minRelative <= 100)) throw new RangeError('minRelative must be between 0 and 100');
   if (!Number.isFinite(mMz) || mMz <= 0) throw new RangeError(`mMz must be a positive number, got ${mMz}`);
   const unit = Array.isArray(peaks) ? toUnitSpectrum(peaks as Peak[]) : (peaks as UnitSpectrum);
@@ -47,12 +68,14 @@ export function annotateLosses(
     const relative = unit.intensities.get(mz) ?? 0;
     const entry = byLoss.get(m - mz);
     if (!entry || relative < minRelative) continue;
+    const compositions = entry.compositions.filter(affordable);
+    if (compositions.length === 0) continue;
     annotations.push({
       fromMz: m,
       toMz: mz,
       loss: entry.loss,
-      composition: entry.compositions.map((c) => c.formula).join(' or '),
-      compositions: entry.compositions,
+      composition: compositions.map((c) => c.formula).join(' or '),
+      compositions,
       relative,
     });
   }
