@@ -44,20 +44,20 @@ export default function RecordPlot({ peaks, molecularIon, losses, isotopes, form
         font: { ...PLOT_FONT, size: 12, color: m === molecularIon ? PLOT_COLOURS.reference : PLOT_COLOURS.ink },
       })),
     ...shownLosses.map((l, i) => ({
-      x: l.toMz,
-      y: 112 + (i % 3) * 9,
+      x: (l.toMz + l.fromMz) / 2,
+      y: 106 + i * 8,
+      yshift: 7,
       text: `M−${l.loss} (${l.composition.split(' or ')[0]})`,
       showarrow: false,
       font: { ...PLOT_FONT, size: 11, color: PLOT_COLOURS.reference },
-      bgcolor: 'rgba(255,255,255,0.85)',
     })),
   ];
   const shapes = shownLosses.map((l, i) => ({
     type: 'line',
     x0: l.toMz,
     x1: l.fromMz,
-    y0: 106 + (i % 3) * 9,
-    y1: 106 + (i % 3) * 9,
+    y0: 106 + i * 8,
+    y1: 106 + i * 8,
     line: { color: PLOT_COLOURS.reference, width: 1, dash: 'dot' },
   }));
 
@@ -89,7 +89,7 @@ export default function RecordPlot({ peaks, molecularIon, losses, isotopes, form
               bargap: 0,
               showlegend: false,
               xaxis: { title: { text: 'm/z' }, range: [Math.max(0, Math.min(...spectrum.mz) - 5), maxMz + 10], gridcolor: PLOT_COLOURS.line, zeroline: false },
-              yaxis: { title: { text: 'relative intensity' }, range: [0, shownLosses.length ? 135 : 112], gridcolor: PLOT_COLOURS.line, tickvals: [0, 25, 50, 75, 100] },
+              yaxis: { title: { text: 'relative intensity' }, range: [0, shownLosses.length ? 112 + shownLosses.length * 8 + 6 : 112], gridcolor: PLOT_COLOURS.line, tickvals: [0, 25, 50, 75, 100] },
               annotations,
               shapes,
             }}

@@ -1,6 +1,7 @@
 // The ranked hit list: every score 0..1 with three decimals under its plain
 // name, the ranking score as a bar, RI difference, and flags for hits too close
 // to the top to tell apart and for formulas the query's molecular ion rules out.
+import { useState } from 'react';
 import { checkHitFormula, closeToTop } from './hitChecks';
 import { SCORE_KEYS, SCORE_LABEL, type Hit, type Interpretation, type ScoreKey } from './types';
 
@@ -12,10 +13,14 @@ interface Props {
   selected: number | null;
   onSelect: (hit: Hit) => void;
   syntheticIds: Set<number>;
+  /** rows shown before "Show all" @default 15 */
+  initialRows?: number;
 }
 
-export default function HitTable({ hits, rankBy, margin, interpretation, selected, onSelect, syntheticIds }: Props) {
+export default function HitTable({ hits, rankBy, margin, interpretation, selected, onSelect, syntheticIds, initialRows = 15 }: Props) {
+  const [showAll, setShowAll] = useState(false);
   const close = closeToTop(hits, margin);
+  const shown = showAll ? hits : hits.slice(0, Math.max(initialRows, selected ?? 0));
   const showRi = hits.some((h) => typeof h.riDelta === 'number');
   return (
     <div className="space-y-2">
@@ -42,13 +47,13 @@ export default function HitTable({ hits, rankBy, margin, interpretation, selecte
             </tr>
           </thead>
           <tbody>
-            {hits.map((h) => {
+            {shown.map((h) => {
               const checks = checkHitFormula(h, interpretation);
               const contradiction = checks.filter((c) => c.kind === 'contradiction');
               const isSelected = selected === h.rank;
               const synthetic = h.synthetic ?? syntheticIds.has(h.spectrumId);
               return (
-                <tr key={`${h.spectrumId}-${h.version}`} className={isSelected ? 'bg-teal-soft' : 'hover:bg-paper'} data-testid="hit-row" data-record-id={h.spectrumId} aria-selected={isSelected}>
+                <tr key={`${h.spectrumId}-${h.version}`} className={isSelected ? 'bg-teal-soft' : 'hover:bg-paper'} data-testid="hit-row" data-record-id={h.spectrumId}>
                   <td className="font-semibold" data-testid="hit-rank">{h.rank}</td>
                   <td>
                     <a href={`/library/${h.spectrumId}?version=${h.version}`} className="font-semibold" data-testid="hit-name">{h.name}</a>
@@ -59,12 +64,12 @@ export default function HitTable({ hits, rankBy, margin, interpretation, selecte
                         <span className="badge border border-amber/50 bg-amber/10 text-amber" title={`within ${margin} of the top score`} data-testid="isomer-flag">possible isomer</span>
                       )}
                       {contradiction.length > 0 && (
-                        <span className="badge border border-alert/40 bg-alert-soft text-alert" title={checks.map((c) => c.message).join('; ')} data-testid="formula-flag">
-                          formula conflicts with M
-                        </span>
+                        <details data-testid="formula-flag">
+                          <summary className="badge cursor-pointer border border-alert/40 bg-alert-soft text-alert">formula conflicts with M</summary>
+                          <p className="mt-0.5 text-xs text-alert">{checks.map((c) => c.message).join('; ')}</p>
+                        </details>
                       )}
                     </div>
-                    {contradiction.length > 0 && <div className="mt-0.5 text-xs text-alert">{checks.map((c) => c.message).join('; ')}</div>}
                   </td>
                   <td className="font-mono">{h.formula ?? '—'}</td>
                   <td>{h.nominalMass ?? '—'}</td>
@@ -92,6 +97,16 @@ export default function HitTable({ hits, rankBy, margin, interpretation, selecte
           </tbody>
         </table>
       </div>
+      {hits.length > shown.length && (
+        <button type="button" className="btn-quiet text-sm" onClick={() => setShowAll(true)} data-testid="show-all-hits">
+          Show all {hits.length} hits
+        </button>
+      )}
+      {hits.some((h) => checkHitFormula(h, interpretation).some((c) => c.kind === 'contradiction')) && (
+        <p className="text-xs text-muted">
+          “formula conflicts with M”: the hit's formula does not fit the molecular-ion candidate or the halogen pattern read from the query (open the flag for the reason). Where M⁺· is weak or absent the reading itself may be wrong.
+        </p>
+      )}
     </div>
   );
 }
