@@ -2,7 +2,7 @@
 // files in quarantine and hands them over in locals); each file is imported
 // in its own transaction and gets a report (API.md).
 import type { APIRoute } from 'astro';
-import fs from 'node:fs';
+import fs from 'node:fs/promises';
 import { z } from 'zod';
 import { apiError, handle, HttpError, json, parseWith } from '../../../lib/http';
 import { syncLibraryIndex } from '../../../lib/library-index';
@@ -13,9 +13,10 @@ const pagesSchema = z.record(z.string(), pageSelection);
 
 export const POST: APIRoute = handle(async ({ locals }) => {
   const uploads: { originalname: string; path: string; size: number }[] = locals.uploads ?? [];
-  const removeAll = () => { for (const f of uploads) fs.rm(f.path, { force: true }, () => {}); };
+  // out of quarantine whatever happens (runImport removes each file once read)
+  const removeAll = () => Promise.all(uploads.map((f) => fs.rm(f.path, { force: true }).catch(() => {})));
   if (locals.uploadError) {
-    removeAll();
+    await removeAll();
     return apiError(locals.uploadError.status, locals.uploadError.code, locals.uploadError.message);
   }
   try {
@@ -45,6 +46,6 @@ export const POST: APIRoute = handle(async ({ locals }) => {
     if (result.files.some((f) => f.status === 'imported')) await syncLibraryIndex().catch(() => {});
     return json(result);
   } finally {
-    removeAll();
+    await removeAll();
   }
 });
