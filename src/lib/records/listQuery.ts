@@ -11,12 +11,12 @@ export type SortKey = (typeof SORT_KEYS)[number];
 
 export const MAX_PAGE_SIZE = 200;
 
-const list = (item: z.ZodType<string>) =>
+const list = <T extends z.ZodType>(item: T) =>
   z
     .string()
     .optional()
     .transform((s) => (s ?? '').split(',').map((x) => x.trim()).filter(Boolean))
-    .pipe(z.array(item));
+    .pipe(z.array(item) as unknown as z.ZodType<z.output<T>[], string[]>);
 
 const element = z.string().regex(/^[A-Z][a-z]?$/, 'an element symbol such as C, Cl or Br');
 const optionalNumber = (min: number, max: number) =>
@@ -63,7 +63,7 @@ export interface ParsedSort {
 }
 
 /** The effective sort: as asked, else relevance when searching by name, else name A→Z. */
-export function effectiveSort(query: Pick<SpectraListQuery, 'sort' | 'q'>): ParsedSort {
+export function effectiveSort(query: { sort?: string; q?: string }): ParsedSort {
   if (!query.sort) return query.q ? { key: 'relevance', descending: false } : { key: 'name', descending: false };
   const descending = query.sort.startsWith('-');
   const key = query.sort.replace(/^-/, '') as SortKey;
