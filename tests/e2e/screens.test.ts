@@ -4,6 +4,7 @@
 // record page, the viewer's navigation and 403, and no console errors or
 // missing assets on any of them. Screenshots land in tests/artifacts/.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import path from 'node:path';
 import type { Browser, Page, Response } from 'playwright-core';
 import { baseUrl, launchBrowser, screenshot, signInAs, watchPage, type PageProblems } from '../helpers/browser';
 
@@ -97,6 +98,25 @@ describe('Identify', () => {
     // both traces drew bars (paths) in the SVG
     for (const i of [0, 1]) expect(await traces.nth(i).locator('path').count()).toBeGreaterThan(0);
     await screenshot(analyst, 'identify-overlay');
+  });
+
+  it('searches with a record’s spectrum when arriving from the record page', async () => {
+    await analyst.goto(`${baseUrl()}/identify?spectrumId=${toluene.id}`);
+    await analyst.waitForSelector('[data-testid=hit-row]', { timeout: 20_000 });
+    expect(await analyst.locator('[data-testid=source-note]').textContent()).toContain(`record ${toluene.id}`);
+    expect(await analyst.locator('[data-testid=hit-row]').first().getAttribute('data-record-id')).toBe(String(toluene.id));
+  });
+
+  it('reads an uploaded JCAMP-DX file into the peak list', async () => {
+    await analyst.goto(`${baseUrl()}/identify`);
+    await analyst.getByRole('tab', { name: 'JCAMP-DX file' }).click();
+    await analyst.setInputFiles('#jcamp-file', path.resolve('tests/fixtures/jcamp/peak-table-xy.jdx'));
+    await analyst.waitForFunction(() => (document.querySelector('#peak-list') as HTMLTextAreaElement | null)?.value.includes('78'));
+    expect(await analyst.locator('[data-testid=source-note]').textContent()).toContain('peak-table-xy.jdx');
+    await analyst.getByRole('button', { name: 'Search', exact: true }).click();
+    await analyst.waitForSelector('[data-testid=hit-row], [data-testid=no-hits]', { timeout: 20_000 });
+    await analyst.waitForSelector('[data-testid=molecular-ion]', { timeout: 20_000 });
+    expect(await analyst.locator('[data-testid=molecular-ion]').textContent()).toContain('m/z 78');
   });
 
   it('points a peak-list error at its line', async () => {
