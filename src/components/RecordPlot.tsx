@@ -41,6 +41,8 @@ export default function RecordPlot({ peaks, molecularIon, losses, isotopes, form
         text: m === molecularIon ? `<b>${m}</b> M⁺·` : String(m),
         showarrow: false,
         yshift: 10,
+        // the molecular-ion label sits right of its stick, clear of the neighbouring peaks' labels
+        ...(m === molecularIon ? { xanchor: 'left', xshift: 2 } : {}),
         font: { ...PLOT_FONT, size: 12, color: m === molecularIon ? PLOT_COLOURS.reference : PLOT_COLOURS.ink },
       })),
     ...shownLosses.map((l, i) => ({
