@@ -8,7 +8,9 @@ import { apiError, isDatabaseDown } from './lib/http';
 import { resolvePrincipal } from './lib/principal';
 import { ensureRuntime } from './lib/runtime';
 import './lib/startup';
-import { trustedOrigins } from './lib/auth';
+import { trustedOrigins, apiKeyFrom } from './lib/auth';
+import { getSequelize } from './lib/db/sequelize';
+import { QueryTypes } from 'sequelize';
 
 // Astro reports route patterns in lower case (`[batchId]` → `[batchid]`), so
 // the manifest is looked up case-insensitively.
@@ -28,6 +30,19 @@ function crossSiteWithCookies(request: Request, url: URL): boolean {
   const origin = request.headers.get('origin');
   if (!origin) return !!request.headers.get('cookie')?.includes('session_token');
   return origin !== url.origin && !trustedOrigins().includes(origin);
+}
+
+function carriesCredentials(request: Request): boolean {
+  return !!apiKeyFrom(request.headers) || !!request.headers.get('cookie')?.includes('session_token');
+}
+
+async function databaseUnreachable(): Promise<boolean> {
+  try {
+    await getSequelize().query('SELECT 1', { type: QueryTypes.SELECT });
+    return false;
+  } catch (e) {
+    return isDatabaseDown(e);
+  }
 }
 
 export const onRequest = defineMiddleware(async (context, next) => {
@@ -64,9 +79,13 @@ export const onRequest = defineMiddleware(async (context, next) => {
         context.locals.user = p.user;
         context.locals.session = p.session;
         context.locals.apiKeyId = p.apiKeyId;
+      } else if (carriesCredentials(request) && (await databaseUnreachable())) {
+        dbDown = true;
       }
     } catch (e) {
-      if (isDatabaseDown(e)) dbDown = true;
+      // better-auth wraps a failed lookup in its own error ("Failed to get
+      // session"): ask the database itself, or an outage looks like a sign-out.
+      if (isDatabaseDown(e) || (await databaseUnreachable())) dbDown = true;
       else console.error('[auth] session lookup failed:', (e as Error).message);
     }
   }
