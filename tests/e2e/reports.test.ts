@@ -209,6 +209,11 @@ describe('identification reports in the browser', () => {
       }
       await page.goto(`${baseUrl()}/reports/${id}`);
       expect(await page.textContent('[data-testid=integrity]')).toBe('Integrity: intact');
+      await screenshot(page, 'report-approved');
+      await page.goto(`${baseUrl()}/reports/${id}/print`);
+      expect(await page.textContent('[data-testid=print-caution]')).toMatch(/reference standard/);
+      expect(await page.locator('[data-testid=print-overlay] svg').count()).toBe(1);
+      await screenshot(page, 'report-print');
       // the viewer does not see drafts
       const all = await db.query<{ id: number }>("SELECT id FROM report WHERE status = 'draft' LIMIT 1", { type: QueryTypes.SELECT });
       if (all[0]) expect((await page.goto(`${baseUrl()}/reports/${all[0].id}`))!.status()).toBe(404);
