@@ -32,6 +32,11 @@ function watchAssets(page: Page) {
   });
 }
 
+/** Wait until the page's islands have hydrated (Astro drops the `ssr` attribute then), so typing reaches React. */
+async function hydrated(page: Page) {
+  await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0, undefined, { timeout: 20_000 });
+}
+
 async function newSignedInPage(who: string): Promise<[Page, PageProblems]> {
   const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
   const page = await context.newPage();
@@ -61,6 +66,7 @@ describe('Identify', () => {
   it('finds the demo record at rank 1 from its pasted peak list', async () => {
     await analyst.goto(`${baseUrl()}/identify`);
     await analyst.waitForSelector('#peak-list');
+    await hydrated(analyst);
     expect(await analyst.locator('label[for=peak-list]').textContent()).toBe('Peak list');
     await analyst.fill('#peak-list', toluene.peaks.map(([mz, i]) => `${mz} ${i}`).join('\n'));
     await analyst.getByRole('button', { name: 'Search', exact: true }).click();
@@ -109,6 +115,8 @@ describe('Identify', () => {
 
   it('reads an uploaded JCAMP-DX file into the peak list', async () => {
     await analyst.goto(`${baseUrl()}/identify`);
+    await analyst.waitForSelector('#peak-list');
+    await hydrated(analyst);
     await analyst.getByRole('tab', { name: 'JCAMP-DX file' }).click();
     await analyst.setInputFiles('#jcamp-file', path.resolve('tests/fixtures/jcamp/peak-table-xy.jdx'));
     await analyst.waitForFunction(() => (document.querySelector('#peak-list') as HTMLTextAreaElement | null)?.value.includes('78'));
@@ -132,6 +140,7 @@ describe('Library', () => {
   it('finds a record from a misspelt name', async () => {
     await analyst.goto(`${baseUrl()}/library`);
     await analyst.waitForSelector('[data-testid=library-row]');
+    await hydrated(analyst);
     await analyst.fill('#lib-q', 'tolune');
     await analyst.waitForFunction(() => new URL(location.href).searchParams.get('q') === 'tolune');
     await analyst.waitForFunction(() => {
@@ -159,6 +168,7 @@ describe('Library', () => {
     for (const m of masses) expect(m).toBeLessThanOrEqual(150);
     expect([...masses].sort((a, b) => b - a)).toEqual(masses);
     // a change made on the page lands in the URL, and that URL restores it
+    await hydrated(analyst);
     await analyst.fill('#lib-massmin', '100');
     await analyst.waitForFunction(() => new URL(location.href).searchParams.get('massMin') === '100');
     const shared = analyst.url();
