@@ -27,7 +27,7 @@ export function buildIfStale({ log = console.log, force = false } = {}): void {
   if (!force && !buildIsStale()) return;
   log('Building the app (first start or sources changed)…');
   const t0 = Date.now();
-  const r = spawnSync(process.execPath, [path.join(ROOT, 'node_modules', 'astro', 'astro.js'), 'build', '--silent'], { cwd: ROOT, stdio: 'inherit' });
+  const r = spawnSync(process.execPath, [path.join(ROOT, 'node_modules', 'astro', 'astro.js'), 'build', '--silent'], { cwd: ROOT, stdio: 'inherit', env: { ...process.env, ASTRO_TELEMETRY_DISABLED: '1' } });
   if (r.status !== 0) throw new Error('astro build failed (see above)');
   const worker = path.join(ROOT, 'scripts', 'build-search-worker.mjs');
   if (fs.existsSync(worker)) {
