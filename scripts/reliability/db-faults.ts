@@ -100,7 +100,7 @@ export async function runDbFaults(): Promise<number> {
 
     // --- bring mariadbd back on the same DATA_DIR and port
     const tRestart = Date.now();
-    const db = await startPrivateMariadb({ dataDir, port: dbPort, log: () => {} });
+    const db = await startPrivateMariadb({ dataDir, port: dbPort });
     restarted = db;
     const dbBackMs = Date.now() - tRestart;
     const tBack = Date.now();

@@ -11,7 +11,7 @@
 //   node --import tsx scripts/reliability/load.ts
 //   env: LOAD_SECONDS (60), LOAD_CONNECTIONS (50), KEEP_DATA=1 keeps DATA_DIR
 import fs from 'node:fs';
-import autocannon from 'autocannon';
+import autocannon, { type Result } from 'autocannon';
 import { startServer, makeDataDir, snapshotRoot, removeSnapshot, sleep, type ServerHandle } from './lib/server';
 import { call, signInOrThrow, demoEmail, userId, issueApiKey, uploadFiles, percentile, type Credential } from './lib/client';
 import { runFile, rng } from './lib/jcamp';
@@ -128,12 +128,12 @@ export async function runLoad(): Promise<number> {
         const headers = { 'content-type': 'application/json', ...analysts[next++ % analysts.length] };
         client.setRequests([{ method: 'POST', path: '/api/search', headers, setupRequest: (req: any) => ({ ...req, headers, body: pick() }) }]);
       },
-    } as any);
+    });
     cannon.on('response', (_client: unknown, statusCode: number, _bytes: number, responseTime: number) => {
       latencies.push(responseTime);
       statuses[statusCode] = (statuses[statusCode] ?? 0) + 1;
     });
-    const [result] = await Promise.all([cannon as unknown as Promise<autocannon.Result>, curatorLoop(0), curatorLoop(1), curatorLoop(2), adminLoop()]);
+    const [result] = await Promise.all([cannon as unknown as Promise<Result>, curatorLoop(0), curatorLoop(1), curatorLoop(2), adminLoop()]);
 
     // --- figures
     latencies.sort((a, b) => a - b);
