@@ -7,7 +7,7 @@
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import crypto from 'node:crypto';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, baseUrl, signInAs, watchPage, screenshot } from '../helpers/browser';
+import { launchBrowser, baseUrl, watchPage, screenshot } from '../helpers/browser';
 
 let browser: Browser;
 const contexts: BrowserContext[] = [];
@@ -23,7 +23,19 @@ async function pageAs(who: string): Promise<Page> {
   const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
   contexts.push(context);
   const page = await context.newPage();
-  await signInAs(page, who);
+  try {
+    // the shared signInAs may type before the form's island hydrates (hydration then empties
+    // the fields): open the page and wait for hydration first, then use it
+    await page.goto(`${baseUrl()}/sign-in`);
+    await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0, null, { timeout: 20_000 });
+    await page.fill('#email', `${who}@demo.ionotheca.test`);
+    await page.fill('#password', 'ionotheca-demo');
+    await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 20000 }), page.click('button[type=submit]')]);
+  } catch (e) {
+    await screenshot(page, `curation-sign-in-${who}`);
+    const alert = await page.locator('[role=alert]').allTextContents().catch(() => []);
+    throw new Error(`signing in as ${who} failed (${alert.join(' ') || 'no message on screen'}): ${(e as Error).message}`);
+  }
   return page;
 }
 
@@ -51,7 +63,7 @@ describe('curation in the browser', () => {
     await page.goto(`${baseUrl()}/import`);
     await page.waitForSelector('[data-testid=drop-zone]');
     // wait for the island to hydrate before dropping
-    await page.waitForFunction(() => !!document.querySelector('astro-island:not([ssr])') || !document.querySelector('astro-island[ssr]'));
+    await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0);
     // record every value each progress bar shows, to see them move to the end
     await page.evaluate(() => {
       (window as any).__progress = {};
@@ -167,5 +179,59 @@ describe('curation in the browser', () => {
     expect(body.files[0]).toMatchObject({ file: 'exported.jdx', status: 'duplicate', duplicateOf: recordIds[1] });
     const batch = await curator.request.get(`${baseUrl()}/api/imports/${body.batchId}`);
     expect((await batch.json()).files[0].status).toBe('duplicate');
+  });
+
+  it('the record edit form shows live mass and IHD, field-level errors, and saves', async () => {
+    const page = await pageAs('curator');
+    const problems = watchPage(page);
+    const text = FILES[2].text.replace(FILES[2].compound, `${FILES[2].compound} edit`).replace(FILES[2].compound, `${FILES[2].compound} edit`)
+      .replace('31, 999', '31, 990').replace('41, 300', '41, 310');
+    const up = await page.request.post(`${baseUrl()}/api/imports`, { headers: { origin: baseUrl() }, multipart: { files: { name: 'edit-me.jdx', mimeType: 'text/plain', buffer: Buffer.from(text) } } });
+    const id = (await up.json()).files[0].spectra[0].id as number;
+    await page.goto(`${baseUrl()}/library/${id}`);
+    await page.locator('[data-testid=record-edit] button').first().click();
+    const form = page.locator('[data-testid=record-edit-form]');
+    await form.waitFor();
+    // bromobenzene: nominal mass 156 (79Br), IHD 4 (common practice, no source)
+    await page.fill('#edit-formula', 'C6H5Br');
+    await expect.poll(() => page.locator('[data-testid=formula-info]').textContent(), { timeout: 10_000 }).toMatch(/nominal 156.*IHD 4/);
+    await page.fill('#edit-casRegistryNo', '108-86-2');
+    await form.locator('button[type=submit]').click();
+    await expect.poll(() => page.locator('[data-testid=error-casRegistryNo]').textContent()).toMatch(/check digit/);
+    await page.fill('#edit-casRegistryNo', '108-86-1');
+    await page.fill('#edit-referenceLot', 'LOT-E2E');
+    await form.locator('button[type=submit]').click();
+    await expect.poll(() => page.locator('[data-testid=edit-message]').textContent()).toMatch(/Saved/);
+    const rec = await (await page.request.get(`${baseUrl()}/api/spectra/${id}`)).json();
+    expect(rec.compound).toMatchObject({ formula: 'C6H5Br', casRegistryNo: '108-86-1', nominalMass: 156 });
+    expect(rec.metadata.referenceLot).toBe('LOT-E2E');
+    expect(problems.pageErrors).toEqual([]);
+  });
+
+  it('the server keeps answering mutated files with a report each', async () => {
+    const page = await pageAs('curator');
+    let seed = 7;
+    const rand = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+    const files = Array.from({ length: 60 }, (_, i) => {
+      let t = FILES[i % 3].text;
+      const at = Math.floor(rand() * t.length);
+      t = i % 4 === 0 ? t.slice(0, at) : i % 4 === 1 ? t.slice(0, at) + 'NaN' + t.slice(at) : i % 4 === 2 ? t.replace('##END=', '') : t.slice(0, at) + '\u0001' + t.slice(at + 1);
+      return { name: `mutant-${i}.jdx`, mimeType: 'application/octet-stream', buffer: Buffer.from(t) };
+    });
+    for (let k = 0; k < files.length; k += 20) {
+      const form = new FormData();
+      for (const f of files.slice(k, k + 20)) form.append('files', new Blob([f.buffer]), f.name);
+      const cookies = await page.context().cookies();
+      const res = await fetch(`${baseUrl()}/api/imports`, { method: 'POST', headers: { origin: baseUrl(), cookie: cookies.map((c) => `${c.name}=${c.value}`).join('; ') }, body: form });
+      expect(res.status).toBe(200);
+      const body = await res.json();
+      expect(body.files).toHaveLength(20);
+      for (const r of body.files) {
+        expect(['imported', 'duplicate', 'rejected', 'needs_selection', 'needs_confirmation']).toContain(r.status);
+        if (r.status === 'rejected') expect(r.error.length).toBeGreaterThan(5);
+      }
+    }
+    const health = await (await fetch(`${baseUrl()}/api/health`)).json();
+    expect(health.status).toBe('ok');
   });
 });
