@@ -136,6 +136,7 @@ describe('curation in the browser', () => {
       await card.waitFor();
       expect(await card.locator('[data-testid=review-diff] [data-field=name]').count()).toBe(1);
       await card.locator('[data-testid=approve-open]').click();
+      if (id === recordIds[0]) await card.screenshot({ path: 'tests/artifacts/curation-review-item.png' });
       await card.locator('[data-testid=approve-sign]').click();
       await expect.poll(() => card.locator('[data-testid=review-error]').textContent()).toMatch(/password/i);
       await card.locator('[data-testid=approve-password]').fill('ionotheca-demo');
@@ -144,7 +145,6 @@ describe('curation in the browser', () => {
     }
     const done = await page.locator('[data-testid=review-done] li').allTextContents();
     expect(done.filter((t) => /released: signed by/.test(t))).toHaveLength(3);
-    await screenshot(page, 'curation-review-approved');
     expect(problems.pageErrors).toEqual([]);
   });
 
