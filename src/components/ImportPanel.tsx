@@ -26,6 +26,7 @@ type Phase = 'waiting' | 'uploading' | 'processing' | 'done' | 'failed';
 interface Item {
   key: string;
   file: File;
+  dropBatch: string;
   phase: Phase;
   upload: number;
   report: Report | null;
@@ -61,8 +62,17 @@ function errorText(status: number, body: any): string {
   return body?.error?.message ?? (status === 413 ? 'The upload is over a size limit.' : `The server answered ${status}.`);
 }
 
-/** One file, one request: XMLHttpRequest for its upload progress events. */
-function upload(file: File, onProgress: (fraction: number) => void, onUploaded: () => void): Promise<{ status: number; body: any }> {
+/** A version-4 UUID; crypto.randomUUID needs a secure context, getRandomValues does not. */
+function newBatchId(): string {
+  const b = crypto.getRandomValues(new Uint8Array(16));
+  b[6] = (b[6] & 0x0f) | 0x40;
+  b[8] = (b[8] & 0x3f) | 0x80;
+  const h = [...b].map((x) => x.toString(16).padStart(2, '0')).join('');
+  return `${h.slice(0, 8)}-${h.slice(8, 12)}-${h.slice(12, 16)}-${h.slice(16, 20)}-${h.slice(20)}`;
+}
+
+/** One file, one request: XMLHttpRequest for its upload progress events. The files of one drop share a batch. */
+function upload(file: File, batchId: string, onProgress: (fraction: number) => void, onUploaded: () => void): Promise<{ status: number; body: any }> {
   return new Promise((resolve) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', '/api/imports');
@@ -77,6 +87,7 @@ function upload(file: File, onProgress: (fraction: number) => void, onUploaded: 
     xhr.onload = () => resolve({ status: xhr.status, body: xhr.response });
     xhr.onerror = () => resolve({ status: 0, body: null });
     const form = new FormData();
+    form.append('batchId', batchId);
     form.append('files', file, file.name);
     xhr.send(form);
   });
@@ -104,6 +115,7 @@ export default function ImportPanel({ maxFileMb = 25 }: { maxFileMb?: number }) 
       patch(key, { phase: 'uploading', upload: 0 });
       void upload(
         item.file,
+        item.dropBatch,
         (fraction) => patch(key, { upload: Math.round(fraction * 100) }),
         () => patch(key, { phase: 'processing', upload: 100 }),
       ).then(({ status, body }) => {
@@ -117,8 +129,9 @@ export default function ImportPanel({ maxFileMb = 25 }: { maxFileMb?: number }) 
 
   function addFiles(list: FileList | File[]) {
     const files = [...list];
+    const dropBatch = newBatchId();
     const fresh: Item[] = files.map((file, i) => ({
-      key: `${Date.now()}-${i}-${file.name}`, file, phase: 'waiting', upload: 0, report: null, batchId: null,
+      key: `${Date.now()}-${i}-${file.name}`, file, dropBatch, phase: 'waiting', upload: 0, report: null, batchId: null,
       problem: file.size > maxFileMb * 1048576 ? `over the size limit of ${maxFileMb} MB` : null, submitted: {}, selecting: null, busy: false,
     }));
     const accepted = fresh.map((it) => (it.problem ? { ...it, phase: 'failed' as Phase } : it));

@@ -23,7 +23,7 @@ export interface RunImportOptions {
   /** NTUPLES page selections by file name */
   pages?: Record<string, PageSelection>;
   source?: 'web' | 'cli' | 'api';
-  /** add to an existing batch instead of starting one */
+  /** add to this batch (created when it does not exist yet) instead of starting one */
   batchId?: string | null;
   /** called after each file, for progress output */
   onFile?: (report: FileReport, index: number, total: number) => void;
@@ -40,17 +40,28 @@ export interface BatchFileView {
   report: FileReport | null;
 }
 
+/**
+ * Start a batch, or add files to one. A client may name a new batch itself
+ * (a UUID) so that it can poll GET /api/imports/:batchId while its upload runs.
+ */
 export async function createBatch(actor: Actor, fileNames: { name: string; size: number }[], source: string, batchId?: string | null) {
   const m = getModels();
   const now = new Date();
-  let id = batchId ?? null;
-  if (id) {
-    const existing = await m.ImportBatch.findByPk(id);
-    if (!existing) throw new HttpError(404, 'not_found', `No import batch ${id}`);
-    await existing.update({ fileCount: Number(existing.get('fileCount')) + fileNames.length, updatedAt: now });
+  const id = batchId ?? crypto.randomUUID();
+  const append = async () => {
+    await m.ImportBatch.increment('fileCount', { by: fileNames.length, where: { id } });
+    await m.ImportBatch.update({ updatedAt: now }, { where: { id } });
+  };
+  if (batchId && (await m.ImportBatch.findByPk(id))) {
+    await append();
   } else {
-    id = crypto.randomUUID();
-    await m.ImportBatch.create({ id, createdBy: actor.id, fileCount: fileNames.length, source, createdAt: now, updatedAt: now });
+    try {
+      await m.ImportBatch.create({ id, createdBy: actor.id, fileCount: fileNames.length, source, createdAt: now, updatedAt: now });
+    } catch (e) {
+      // two uploads naming the same new batch at once: the second joins it
+      if ((e as Error).name !== 'SequelizeUniqueConstraintError') throw e;
+      await append();
+    }
   }
   const rows = fileNames.length
     ? await m.ImportFile.bulkCreate(fileNames.map((f) => ({

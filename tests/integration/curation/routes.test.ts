@@ -3,6 +3,7 @@
 // as API.md's error shape, files removed from quarantine, batch state,
 // confirm, review, PATCH, tags, JCAMP-DX export.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -104,6 +105,21 @@ describe('POST /api/imports', () => {
     expect(confirmed.body).toMatchObject({ batchId: r.body.batchId, file: 'lookalike.jdx', status: 'imported' });
     expect((await call(confirmRoute, ctx({ actor: curator, params: { batchId: r.body.batchId }, body: { file: 'bad.jdx' } }))).status).toBe(409);
     expect((await call(confirmRoute, ctx({ actor: curator, params: { batchId: r.body.batchId }, body: { file: 'ghost.jdx' } }))).status).toBe(404);
+  });
+});
+
+describe('a batch named by the client', () => {
+  it('is created on the first upload and grows with the next, so it can be polled meanwhile', async () => {
+    const batchId = crypto.randomUUID();
+    const one = await call(postImports, ctx({ actor: curator, locals: { uploads: [quarantined('n1.jdx', peakTableFile({ title: `Named 1 ${RUN}`, formula: 'C5H10', peaks: randomPeaks(next) }))], uploadFields: { batchId } } }));
+    expect(one.body.batchId).toBe(batchId);
+    const two = await call(postImports, ctx({ actor: curator, locals: { uploads: [quarantined('n2.jdx', peakTableFile({ title: `Named 2 ${RUN}`, formula: 'C5H12', peaks: randomPeaks(next) }))], uploadFields: { batchId } } }));
+    expect(two.body.batchId).toBe(batchId);
+    const batch = await call(getBatchRoute, ctx({ actor: curator, method: 'GET', params: { batchId } }));
+    expect(batch.body.files.map((f: any) => [f.file, f.status])).toEqual([['n1.jdx', 'imported'], ['n2.jdx', 'imported']]);
+    expect(batch.body.fileCount).toBe(2);
+    const bad = await call(postImports, ctx({ actor: curator, locals: { uploads: [quarantined('n3.jdx', 'x')], uploadFields: { batchId: 'not-a-uuid' } } }));
+    expect(bad.status).toBe(400);
   });
 });
 
