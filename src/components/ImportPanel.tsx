@@ -236,7 +236,7 @@ export default function ImportPanel({ maxFileMb = 25 }: { maxFileMb?: number }) 
               {items.filter((it) => it.report || it.problem).map((it) => {
                 const r = it.report;
                 return (
-                  <tr key={it.key} data-testid="report-row" data-file={it.file.name} data-status={r?.status ?? 'failed'}>
+                  <tr key={it.key} data-testid="report-row" data-file={it.file.name} data-status={r?.status ?? 'failed'} data-batch={it.batchId ?? ''}>
                     <td className="font-mono">{it.file.name}</td>
                     <td>
                       {r ? <span className={`badge border ${STATUS_TONE[r.status]}`} data-testid="report-status">{STATUS_TEXT[r.status]}</span> : <span className="badge border bg-alert-soft text-alert">not sent</span>}

@@ -95,6 +95,12 @@ describe('curation in the browser', () => {
     const links = await page.$$eval('[data-testid=record-link]', (els) => els.map((e) => Number((e as HTMLAnchorElement).href.split('/').pop())));
     expect(links).toHaveLength(3);
     recordIds = links;
+    // the three files of one drop are one batch, which GET /api/imports/:batchId shows
+    const batches = [...new Set(await rows.evaluateAll((els) => els.map((e) => e.getAttribute('data-batch'))))];
+    expect(batches).toHaveLength(1);
+    const batch = await (await page.request.get(`${baseUrl()}/api/imports/${batches[0]}`)).json();
+    expect(batch.files.map((f: any) => f.status)).toEqual(['imported', 'imported', 'imported']);
+    expect(batch.done).toBe(true);
     await screenshot(page, 'curation-import-report');
 
     await page.click('[data-testid=submit-all]');
