@@ -83,6 +83,10 @@ function createAuth() {
       },
     },
     advanced: {
+      // better-auth turns its own Origin check off when NODE_ENV is "test"
+      // (vitest sets it, and the e2e server inherits it): keep it on always,
+      // so the tests see the origin rules production has.
+      disableOriginCheck: false,
       useSecureCookies: secure,
       defaultCookieAttributes: { httpOnly: true, sameSite: 'lax', secure, path: '/' },
       ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
