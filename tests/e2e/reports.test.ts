@@ -153,6 +153,44 @@ describe('identification reports in the browser', () => {
     }
   });
 
+  it('the analyst concludes and submits it on the page; the second curator signs it there', async () => {
+    expect(reportId).toBeGreaterThan(0);
+    const a = await newSignedInPage('analyst');
+    try {
+      const page = a.page;
+      const api = await (await page.request.get(`${baseUrl()}/api/reports/${reportId}`)).json();
+      const alternatives = (api.criteria.alternatives as { name: string }[]).map((x) => x.name);
+      await page.goto(`${baseUrl()}/reports/${reportId}`);
+      await page.click('[data-testid=edit-report]');
+      await page.selectOption('select[name=conclusion]', 'tentative');
+      await page.fill('textarea[name=reasoning]', `Closest library match; no standard run yet.${alternatives.length ? ` Also considered: ${alternatives.join(', ')}.` : ''}`);
+      await Promise.all([page.waitForEvent('load'), page.click('[data-testid=edit-form] button[type=submit]')]);
+      expect(await page.textContent('[data-testid=conclusion-text]')).toBe('Tentative');
+      await page.fill('[data-testid=review-comment]', 'Please review.');
+      await Promise.all([page.waitForEvent('load'), page.click('[data-testid=submit-report]')]);
+      expect(await page.textContent('[data-testid=report-status]')).toBe('Submitted for review');
+    } finally {
+      await a.context.close();
+    }
+    const c = await newSignedInPage('curator2');
+    try {
+      const page = c.page;
+      await page.goto(`${baseUrl()}/reports/${reportId}`);
+      await page.fill('[data-testid=sign-password]', 'not-the-password');
+      await page.click('[data-testid=approve-report]');
+      await page.waitForSelector('[data-testid=action-error]');
+      expect(await page.textContent('[data-testid=action-error]')).toMatch(/password/i);
+      await page.fill('[data-testid=sign-password]', 'ionotheca-demo');
+      await Promise.all([page.waitForEvent('load'), page.click('[data-testid=approve-report]')]);
+      expect(await page.textContent('[data-testid=report-status]')).toBe('Approved');
+      expect(await page.textContent('[data-testid=integrity]')).toBe('Integrity: intact');
+      expect(await page.textContent('[data-testid=signature]')).toMatch(/Tobiah Quennell.*reviewed and approved/);
+      expect(await page.textContent('[data-testid=report-reviewer]')).toBe('Tobiah Quennell');
+    } finally {
+      await c.context.close();
+    }
+  });
+
   it('prints it to PDF through Chromium: at least one page, with the report id in its text', async () => {
     expect(reportId).toBeGreaterThan(0);
     const { context, page } = await newSignedInPage('analyst');
@@ -190,7 +228,10 @@ describe('identification reports in the browser', () => {
       const list = await (await page.request.get(`${baseUrl()}/api/reports`)).json();
       expect(list.items.length).toBeGreaterThan(0);
       expect(list.items.every((i: any) => i.status === 'approved')).toBe(true);
-      const id = list.items[0].id;
+      const id = list.items.find((i: any) => i.title.includes('PCL-2291'))?.id ?? list.items[list.items.length - 1].id;
+      await page.goto(`${baseUrl()}/reports`);
+      await page.waitForSelector(`[data-testid=reports-table] tr[data-report-id="${id}"]`);
+      expect(await page.locator('[data-testid=reports-table] tbody tr[data-report-id]').count()).toBe(list.items.length);
       await page.goto(`${baseUrl()}/reports/${id}`);
       expect(await page.textContent('[data-testid=integrity]')).toBe('Integrity: intact');
       expect(await page.textContent('[data-testid=signature]')).toMatch(/reviewed and approved/);
