@@ -47,6 +47,8 @@ export async function screenshot(page: Page, name: string) {
 /** Sign in through the API in this page's context (cookie lands in the browser). */
 export async function signInAs(page: Page, who: string, password = 'ionotheca-demo') {
   await page.goto(`${baseUrl()}/sign-in`);
+  // Wait until React has hydrated the form, or typing may be lost.
+  await page.waitForSelector('astro-island:not([ssr]) [data-testid="sign-in-form"]', { timeout: 20000 });
   await page.fill('#email', `${who}@demo.ionotheca.test`);
   await page.fill('#password', password);
   await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 20000 }), page.click('button[type=submit]')]);

@@ -1,7 +1,10 @@
 import type { Peak } from './types';
 
 export interface UnitSpectrum {
-  /** relative intensity (base peak = 100) per nominal m/z */
+  /** Largest m/z accepted for unit-mass work. */
+export const MAX_UNIT_MZ = 100_000;
+
+/** relative intensity (base peak = 100) per nominal m/z */
   intensities: Map<number, number>;
   /** nominal m/z values present, ascending */
   masses: number[];
@@ -25,6 +28,11 @@ export function toUnitSpectrum(peaks: readonly Peak[]): UnitSpectrum {
     const [mz, intensity] = peak;
     if (typeof mz !== 'number' || !Number.isFinite(mz) || mz <= 0) {
       throw new RangeError(`peaks[${index}]: m/z must be a positive number, got ${String(mz)}`);
+    }
+    // Beyond any mass spectrometer's range: a damaged number, and unit-mass
+    // arrays over it would exhaust memory.
+    if (mz > MAX_UNIT_MZ) {
+      throw new RangeError(`peaks[${index}]: m/z ${mz} is above ${MAX_UNIT_MZ}`);
     }
     if (typeof intensity !== 'number' || !Number.isFinite(intensity) || intensity < 0) {
       throw new RangeError(`peaks[${index}]: intensity must be a number >= 0, got ${String(intensity)}`);
