@@ -1,10 +1,10 @@
 import type { Peak } from './types';
 
-export interface UnitSpectrum {
-  /** Largest m/z accepted for unit-mass work. */
+/** Largest m/z accepted for unit-mass work. */
 export const MAX_UNIT_MZ = 100_000;
 
-/** relative intensity (base peak = 100) per nominal m/z */
+export interface UnitSpectrum {
+  /** relative intensity (base peak = 100) per nominal m/z */
   intensities: Map<number, number>;
   /** nominal m/z values present, ascending */
   masses: number[];
