@@ -43,16 +43,18 @@ async function fetchEntries(where: string, replacements: unknown[]): Promise<{ e
     { replacements, type: QueryTypes.SELECT },
   );
   if (rows.length === 0) return { entries: [], gone: [] };
-  const versionIds = rows.map((r) => Number(r.id));
-  const recordIds = [...new Set(rows.map((r) => Number(r.recordId)))];
+  // Tags and retention indices of the same rows, by join rather than by a
+  // list of ids, so a full rebuild of a large library stays two queries.
   const tagRows = await s.query<Row>(
-    'SELECT rt.recordId, t.name FROM record_tag rt JOIN tag t ON t.id = rt.tagId WHERE rt.recordId IN (?)',
-    { replacements: [recordIds], type: QueryTypes.SELECT },
+    `SELECT DISTINCT rt.recordId, t.name FROM record_tag rt JOIN tag t ON t.id = rt.tagId
+       JOIN spectrum_version v ON v.recordId = rt.recordId JOIN spectrum_record r ON r.id = v.recordId WHERE ${where}`,
+    { replacements, type: QueryTypes.SELECT },
   );
-  const riRows = await s.query<Row>('SELECT spectrumVersionId, phase, value FROM retention_index WHERE spectrumVersionId IN (?)', {
-    replacements: [versionIds],
-    type: QueryTypes.SELECT,
-  });
+  const riRows = await s.query<Row>(
+    `SELECT ri.spectrumVersionId, ri.phase, ri.value FROM retention_index ri
+       JOIN spectrum_version v ON v.id = ri.spectrumVersionId JOIN spectrum_record r ON r.id = v.recordId WHERE ${where}`,
+    { replacements, type: QueryTypes.SELECT },
+  );
   const tags = new Map<number, string[]>();
   for (const t of tagRows) tags.set(Number(t.recordId), [...(tags.get(Number(t.recordId)) ?? []), String(t.name)]);
   const ris = new Map<number, { phase: string; value: number }[]>();
