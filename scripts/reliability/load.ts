@@ -1,7 +1,8 @@
-// Load run: 50 analysts (half through API keys, half through signed-in
-// sessions) search with autocannon for 60 s while 3 curators import and
+// Load run: 50 analysts, each signed in with a session of their own (as the
+// web pages are), search with autocannon for 60 s while 3 curators import and
 // release files and one admin edits users, against a server this script
-// starts on loopback with its own ports and DATA_DIR. All request loops are
+// starts on loopback with its own ports and DATA_DIR; then 20 s more of search
+// with each connection on an API key of its own. All request loops are
 // bounded in time and count and stop by themselves.
 //
 // Figures: search requests/s, search p50/p95/p99, errors of every kind, and
@@ -9,7 +10,8 @@
 // released versions in SQL at the end. Targets: 0 errors, search p95 < 500 ms.
 //
 //   node --import tsx scripts/reliability/load.ts
-//   env: LOAD_SECONDS (60), LOAD_CONNECTIONS (50), KEEP_DATA=1 keeps DATA_DIR
+//   env: LOAD_SECONDS (60), LOAD_CONNECTIONS (50), LOAD_API_KEY_SHARE (0: share of
+//   the main phase on API keys), LOAD_KEY_SECONDS (20; 0 skips), KEEP_DATA=1 keeps DATA_DIR
 import fs from 'node:fs';
 import autocannon, { type Result } from 'autocannon';
 import { startServer, makeDataDir, snapshotRoot, removeSnapshot, sleep, type ServerHandle } from './lib/server';
@@ -20,6 +22,41 @@ import { RunReport, countReleased, runCheckData, round } from './lib/report';
 const SECONDS = Number(process.env.LOAD_SECONDS ?? 60);
 const CONNECTIONS = Number(process.env.LOAD_CONNECTIONS ?? 50);
 const P95_TARGET_MS = 500;
+/** Share of the analysts of the main phase that come through API keys; the rest sign in (as the web pages do). */
+const KEY_SHARE = Number(process.env.LOAD_API_KEY_SHARE ?? 0);
+/** A second, search-only phase with every connection on its own API key (instruments, scripts); 0 skips it. */
+const KEY_SECONDS = Number(process.env.LOAD_KEY_SECONDS ?? 20);
+
+interface SearchLoad {
+  result: Result;
+  latencies: number[];
+  statuses: Record<string, number>;
+}
+
+/** autocannon on POST /api/search: one credential per connection, a random body per request. */
+async function searchLoad(base: string, creds: Record<string, string>[], seconds: number, bodies: string[], alongside: Promise<unknown>[] = []): Promise<SearchLoad> {
+  const latencies: number[] = [];
+  const statuses: Record<string, number> = {};
+  let next = 0;
+  const pick = () => bodies[Math.floor(Math.random() * bodies.length)];
+  const cannon = autocannon({
+    url: `${base}/api/search`,
+    connections: creds.length,
+    duration: seconds,
+    timeout: 30,
+    setupClient: (client: any) => {
+      const headers = { 'content-type': 'application/json', ...creds[(next++ * 7) % creds.length] };
+      client.setRequests([{ method: 'POST', path: '/api/search', headers, setupRequest: (req: any) => ({ ...req, headers, body: pick() }) }]);
+    },
+  });
+  cannon.on('response', (_client: unknown, statusCode: number, _bytes: number, responseTime: number) => {
+    latencies.push(responseTime);
+    statuses[statusCode] = (statuses[statusCode] ?? 0) + 1;
+  });
+  const [result] = await Promise.all([cannon as unknown as Promise<Result>, ...alongside]);
+  latencies.sort((a, b) => a - b);
+  return { result, latencies, statuses };
+}
 
 export async function runLoad(): Promise<number> {
   const rep = new RunReport('load');
@@ -42,11 +79,13 @@ export async function runLoad(): Promise<number> {
     for (const who of ['curator', 'curator2', 'viewer']) curators.push({ cookie: await signInOrThrow(base, demoEmail(who)) });
 
     const analysts: Record<string, string>[] = [];
+    const keyCount = Math.round(CONNECTIONS * KEY_SHARE);
     for (let i = 0; i < CONNECTIONS; i++) {
-      if (i % 2 === 0) analysts.push({ authorization: `Bearer ${await issueApiKey(base, admin, analystId, `load analyst ${i}`)}` });
+      if (i < keyCount) analysts.push({ authorization: `Bearer ${await issueApiKey(base, admin, analystId, `load analyst ${i}`)}` });
       else analysts.push({ cookie: await signInOrThrow(base, demoEmail('analyst')), origin: base });
     }
-    rep.log(`${analysts.length} analyst credentials (${Math.ceil(CONNECTIONS / 2)} API keys, ${Math.floor(CONNECTIONS / 2)} sessions)`);
+    rep.log(`${analysts.length} analyst credentials (${keyCount} API keys, ${CONNECTIONS - keyCount} sessions)`);
+    rep.figure('analysts', { apiKeys: keyCount, sessions: CONNECTIONS - keyCount });
 
     // --- what: queries made from released demo spectra, with noise, some with filters
     const list = await call(base, '/api/spectra?pageSize=200', { cookie: curators[0].cookie });
@@ -114,29 +153,10 @@ export async function runLoad(): Promise<number> {
     };
 
     // --- the searchers
-    const latencies: number[] = [];
-    const statuses: Record<string, number> = {};
-    let next = 0;
-    const pick = () => bodies[Math.floor(Math.random() * bodies.length)];
     rep.log(`searching with ${CONNECTIONS} connections for ${SECONDS} s while 3 curators import and an admin edits users…`);
-    const cannon = autocannon({
-      url: `${base}/api/search`,
-      connections: CONNECTIONS,
-      duration: SECONDS,
-      timeout: 30,
-      setupClient: (client: any) => {
-        const headers = { 'content-type': 'application/json', ...analysts[next++ % analysts.length] };
-        client.setRequests([{ method: 'POST', path: '/api/search', headers, setupRequest: (req: any) => ({ ...req, headers, body: pick() }) }]);
-      },
-    });
-    cannon.on('response', (_client: unknown, statusCode: number, _bytes: number, responseTime: number) => {
-      latencies.push(responseTime);
-      statuses[statusCode] = (statuses[statusCode] ?? 0) + 1;
-    });
-    const [result] = await Promise.all([cannon as unknown as Promise<Result>, curatorLoop(0), curatorLoop(1), curatorLoop(2), adminLoop()]);
+    const { result, latencies, statuses } = await searchLoad(base, analysts, SECONDS, bodies, [curatorLoop(0), curatorLoop(1), curatorLoop(2), adminLoop()]);
 
     // --- figures
-    latencies.sort((a, b) => a - b);
     const searchErrors = result.errors + result.timeouts + result.non2xx;
     const p50 = percentile(latencies, 50);
     const p95 = percentile(latencies, 95);
@@ -167,6 +187,18 @@ export async function runLoad(): Promise<number> {
 
     const cd = runCheckData({ DATA_DIR: dataDir, DB_PORT: String(server.dbPort) });
     rep.check('check-data passes after the load', cd.ok, cd.output.split('\n').slice(-2).join(' '));
+
+    // --- the same searches with every connection on an API key (search only)
+    if (KEY_SECONDS > 0) {
+      const keys: Record<string, string>[] = [];
+      for (let i = 0; i < CONNECTIONS; i++) keys.push({ authorization: `Bearer ${await issueApiKey(base, admin, analystId, `load key ${i}`)}` });
+      rep.log(`searching with ${CONNECTIONS} API keys for ${KEY_SECONDS} s (search only)…`);
+      const k = await searchLoad(base, keys, KEY_SECONDS, bodies);
+      const kErrors = k.result.errors + k.result.timeouts + k.result.non2xx;
+      const kp = { p50: round(percentile(k.latencies, 50)), p95: round(percentile(k.latencies, 95)), p99: round(percentile(k.latencies, 99)) };
+      rep.figure('apiKeyPhase', { seconds: KEY_SECONDS, requests: k.result.requests.total, requestsPerSecond: round(k.result.requests.total / KEY_SECONDS), latencyMs: kp, errors: kErrors });
+      rep.check('searches through API keys answered without errors', kErrors === 0 && k.result.requests.total > 0, `${k.result.requests.total} searches, ${round(k.result.requests.total / KEY_SECONDS)}/s, p50 ${kp.p50} ms, p95 ${kp.p95} ms (figure only: each key use writes lastRequest)`);
+    }
   } catch (e) {
     rep.check('load run completed', false, (e as Error).stack ?? String(e));
     if (server) console.log(server.logTail(2000));
