@@ -30,6 +30,8 @@ export function freePort(): Promise<number> {
  */
 export function snapshotRoot(log: (s: string) => void = console.log): string {
   if (process.env.RELIABILITY_SNAPSHOT === '0') return ROOT;
+  // run.ts makes one copy for all its runs
+  if (process.env.RELIABILITY_ROOT && fs.existsSync(process.env.RELIABILITY_ROOT)) return process.env.RELIABILITY_ROOT;
   const snap = fs.mkdtempSync(path.join(os.tmpdir(), 'ionotheca-snap-'));
   for (const name of ['node_modules', 'src', 'db', 'seeds', 'public', 'package.json', 'package-lock.json', 'tsconfig.json', 'astro.config.mjs']) {
     if (fs.existsSync(path.join(ROOT, name))) fs.symlinkSync(path.join(ROOT, name), path.join(snap, name));
@@ -58,7 +60,7 @@ export function snapshotRoot(log: (s: string) => void = console.log): string {
 }
 
 export function removeSnapshot(root: string) {
-  if (root !== ROOT && root.startsWith(os.tmpdir())) fs.rmSync(root, { recursive: true, force: true });
+  if (root !== ROOT && root !== process.env.RELIABILITY_ROOT && root.startsWith(os.tmpdir())) fs.rmSync(root, { recursive: true, force: true });
 }
 
 export function makeDataDir(prefix: string): string {
