@@ -134,7 +134,7 @@ export async function runTwoServers(): Promise<number> {
     const trunc = await refused(`TRUNCATE TABLE ${trail}`);
     const [cnt] = await app.query('SELECT COUNT(*) AS n FROM audit_event');
     await app.end();
-    rep.check('the app account cannot UPDATE, DELETE or TRUNCATE audit_event', upd && del && trunc, `UPDATE refused: ${upd}, DELETE refused: ${del}, TRUNCATE refused: ${trunc}`);
+    rep.check('the app account cannot change or remove audit rows (UPDATE, DELETE and TRUNCATE refused)', upd && del && trunc, `UPDATE refused: ${upd}, DELETE refused: ${del}, TRUNCATE refused: ${trunc}`);
     const adminB: Credential = { cookie: await signInOrThrow(B.base, demoEmail('admin')) };
     const csv = await call(B.base, `/api/admin/audit?format=csv&record=${id}`, adminB);
     const lines = String(csv.body).trim().split(/\r?\n/);
