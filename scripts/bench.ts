@@ -151,7 +151,9 @@ async function benchSize(n: number, seed: number): Promise<{ run: Run; index: Se
   const queries = makeQueries(cols, QUERIES, seed + 1);
   const perScore: Record<string, { p50Ms: number; p95Ms: number; inThreadP50Ms: number; inThreadP95Ms: number; checked: number; exact: boolean }> = {};
   let exactAll = true;
-  const stall = monitorEventLoopDelay({ resolution: 1 });
+  collectGarbage();
+  // A fresh histogram per phase: a re-enabled one would count the disabled time as one long delay.
+  let singleStall = 0;
   let headline: number[] = [];
   for (const rankBy of ['composite', ...SCORE_NAMES.filter((s) => s !== 'composite')] as ScoreName[]) {
     const count = n >= 1_000_000 && rankBy !== 'composite' ? 60 : QUERIES;
@@ -159,6 +161,7 @@ async function benchSize(n: number, seed: number): Promise<{ run: Run; index: Se
     const options: SearchOptions = { rankBy, limit: K };
     const times: number[] = [];
     const got: string[] = [];
+    const stall = monitorEventLoopDelay({ resolution: 1 });
     stall.enable();
     for (const q of qs) {
       const t0 = performance.now();
@@ -167,6 +170,7 @@ async function benchSize(n: number, seed: number): Promise<{ run: Run; index: Se
       got.push(keyOf(res.hits));
     }
     stall.disable();
+    singleStall = Math.max(singleStall, stall.max / 1e6);
     const inThread: number[] = [];
     for (const q of qs.slice(0, Math.min(count, n >= 1_000_000 ? (rankBy === 'composite' ? 30 : 10) : 100))) {
       const t0 = performance.now();
@@ -181,7 +185,8 @@ async function benchSize(n: number, seed: number): Promise<{ run: Run; index: Se
     if (rankBy === 'composite') headline = times;
     log(`${rankBy.padEnd(14)} p50 ${ms(pct(times, 50))} ms, p95 ${ms(pct(times, 95))} ms (pool); in-thread p50 ${ms(pct(inThread, 50))} ms; exact ${exact} (${checkCount} checked)`);
   }
-  const singleStallMs = ms(stall.max / 1e6);
+  const singleStallMs = ms(singleStall);
+  const batch = n === 100_000 ? await benchBatch(index, cols) : null;
   // Memory-scan floor: one sequential pass over every stored peak's weight.
   const floor: number[] = [];
   for (let i = 0; i < 7; i++) {
@@ -223,10 +228,17 @@ async function benchSize(n: number, seed: number): Promise<{ run: Run; index: Se
     byScore: perScore,
     singleSearchEventLoopMaxStallMs: singleStallMs,
   };
-  return { run, index, cols };
+  return { run, index, cols, batch };
+}
+
+/** A full collection between phases (node --expose-gc), so that one phase's garbage does not pause the next one's measurement. */
+function collectGarbage(): void {
+  const gc = (globalThis as { gc?: () => void }).gc;
+  if (gc) gc();
 }
 
 async function timedBatch(index: SearchIndex, queries: Peak[][], options: SearchOptions) {
+  collectGarbage();
   const stall = monitorEventLoopDelay({ resolution: 1 });
   let maxGap = 0;
   let last = performance.now();
@@ -337,10 +349,12 @@ async function main() {
   log(`search bench (${FULL ? 'full' : 'quick'}); node ${process.version}; ${os.cpus().length} cpus; pool: ${pool ? `${pool.threads} threads, ${pool.location.source}` : 'none (in-thread)'}`);
   const runs: Run[] = [];
   let batchOut: Awaited<ReturnType<typeof benchBatch>> | null = null;
+  collectGarbage();
   for (const n of SIZES) {
-    const { run, index, cols } = await benchSize(n, 1000 + n);
+    const { run, batch } = await benchSize(n, 1000 + n);
     runs.push(run);
-    if (n === 100_000) batchOut = await benchBatch(index, cols);
+    if (batch) batchOut = batch;
+    collectGarbage();
   }
   const accuracy = await benchAccuracy();
   const loadMs = await loadFromDbMs(100_000);

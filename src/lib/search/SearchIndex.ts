@@ -165,6 +165,8 @@ export class SearchIndex {
     this.masks.clear();
   }
 
+  private readonly metaOfDoc = (d: number): EntryMeta => this.metaAt(d);
+
   private metaAt(d: number): EntryMeta {
     const m = this.metas[d];
     if (m) return m;
@@ -328,7 +330,7 @@ export class SearchIndex {
     for (const part of parts) {
       for (let i = 0; i < part.docs.length; i++) {
         const d = part.docs[i];
-        cands.push({ score: part.rank[i], recordId: seg.recordId[d], spectrumId: seg.spectrumId[d], scores: part.scores, at: i * 4, meta: () => this.metaAt(d) });
+        cands.push({ score: part.rank[i], recordId: seg.recordId[d], spectrumId: seg.spectrumId[d], scores: part.scores, at: i * 4, doc: d, meta: null });
       }
     }
     let searched = mask.searched;
@@ -345,7 +347,7 @@ export class SearchIndex {
         if (!(out[0] > 0)) continue;
         const raw = out[slot];
         const meta = p.meta;
-        cands.push({ score: allow === 2 ? Math.max(0, raw - penalty) : raw, recordId: meta.recordId, spectrumId: meta.spectrumId, scores: out, at: 0, meta: () => meta });
+        cands.push({ score: allow === 2 ? Math.max(0, raw - penalty) : raw, recordId: meta.recordId, spectrumId: meta.spectrumId, scores: out, at: 0, doc: -1, meta });
       }
     }
     return { cands, searched };
@@ -360,7 +362,7 @@ export class SearchIndex {
     const { o, mask, penalty } = this.prepare(options, filters);
     const [part] = runSearchTask(this.task('search', o, mask, penalty, [peaks], 0, this.seg.n));
     const { cands, searched } = this.collect([part], peaks, o, mask, penalty);
-    return { hits: toHits(cands, o.limit, filters), searched, tookMs: performance.now() - t0 };
+    return { hits: toHits(cands, o.limit, filters, this.metaOfDoc), searched, tookMs: performance.now() - t0 };
   }
 
   /**
@@ -389,7 +391,7 @@ export class SearchIndex {
       parts = await this.slices(o, mask, penalty, peaks);
     }
     const { cands, searched } = this.collect(parts, peaks, o, mask, penalty);
-    return { hits: toHits(cands, o.limit, filters), searched, tookMs: performance.now() - t0 };
+    return { hits: toHits(cands, o.limit, filters, this.metaOfDoc), searched, tookMs: performance.now() - t0 };
   }
 
   private async slices(o: ResolvedSearchOptions, mask: Mask, penalty: number, peaks: Peak[]): Promise<TaskHits[]> {
@@ -413,7 +415,7 @@ export class SearchIndex {
     const results: SearchResult[] = new Array(queries.length);
     const finishOne = (i: number, part: TaskHits) => {
       const { cands, searched } = this.collect([part], queries[i], o, mask, penalty);
-      results[i] = { hits: toHits(cands, o.limit, filters), searched, tookMs: 0 };
+      results[i] = { hits: toHits(cands, o.limit, filters, this.metaOfDoc), searched, tookMs: 0 };
     };
     const pool = getSearchPool();
     let done = false;
@@ -438,7 +440,7 @@ export class SearchIndex {
       for (let i = 0; i < queries.length; i++) {
         const parts = await this.slices(o, mask, penalty, queries[i]);
         const { cands, searched } = this.collect(parts, queries[i], o, mask, penalty);
-        results[i] = { hits: toHits(cands, o.limit, filters), searched, tookMs: 0 };
+        results[i] = { hits: toHits(cands, o.limit, filters, this.metaOfDoc), searched, tookMs: 0 };
       }
     }
     const took = performance.now() - t0;

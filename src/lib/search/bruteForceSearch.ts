@@ -40,7 +40,7 @@ export function bruteForceSearch(
     if (!(out[0] > 0)) continue;
     const raw = out[slot];
     const { peaks: _peaks, ...meta } = e;
-    cands.push({ score: allow === 2 ? Math.max(0, raw - penalty) : raw, recordId: e.recordId, spectrumId: e.spectrumId, scores: out, at: 0, meta: () => meta as EntryMeta });
+    cands.push({ score: allow === 2 ? Math.max(0, raw - penalty) : raw, recordId: e.recordId, spectrumId: e.spectrumId, scores: out, at: 0, doc: -1, meta: meta as EntryMeta });
   }
-  return { hits: toHits(cands, o.limit, filters), searched, tookMs: performance.now() - t0 };
+  return { hits: toHits(cands, o.limit, filters, () => { throw new Error('no segment'); }), searched, tookMs: performance.now() - t0 };
 }

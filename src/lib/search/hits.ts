@@ -9,7 +9,9 @@ export interface Candidate {
   /** [cosine, reverseCosine, composite, entropy] */
   scores: ArrayLike<number>;
   at: number;
-  meta: () => EntryMeta;
+  /** Segment doc, or -1 with `meta` set (a pending entry). */
+  doc: number;
+  meta: EntryMeta | null;
 }
 
 /** Hit order: ranking score descending, then record id, then spectrum id. */
@@ -17,10 +19,10 @@ export function compareCandidates(a: Candidate, b: Candidate): number {
   return b.score - a.score || a.recordId - b.recordId || a.spectrumId - b.spectrumId;
 }
 
-export function toHits(cands: Candidate[], limit: number, filters: SearchFilters | undefined): SearchHit[] {
+export function toHits(cands: Candidate[], limit: number, filters: SearchFilters | undefined, metaOfDoc: (doc: number) => EntryMeta): SearchHit[] {
   cands.sort(compareCandidates);
   return cands.slice(0, limit).map((c, i) => {
-    const m = c.meta();
+    const m = c.meta ?? metaOfDoc(c.doc);
     const s = c.scores;
     const scores: Record<ScoreName, number> = { cosine: s[c.at], reverseCosine: s[c.at + 1], composite: s[c.at + 2], entropy: s[c.at + 3] };
     const hit: SearchHit = {
