@@ -237,7 +237,24 @@ describe('pages render the payloads as text', () => {
   it('admin users and the mailbox, for the admin', async () => {
     await visit('admin', ['/admin', '/admin/mail', '/admin/keys'], async (page, path) => {
       if (path === '/admin') await page.waitForFunction((m) => document.body.innerText.includes(m), MARK, { timeout: 15_000 });
+      if (path === '/admin/mail') expect(await page.locator('body').innerText()).toContain(`${MARK} report ${P.script}`);
     });
+  });
+
+  it('the e-mails themselves: their HTML parts render the payloads as text', async () => {
+    const mails = await call(base(), '/api/admin/mail?limit=100', { cookie: admin });
+    const ours = (mails.body.items as any[]).filter((m) => `${m.subject}\n${m.text}`.includes(MARK));
+    expect(ours.length).toBeGreaterThan(0);
+    const ctx = await browser.newContext({ javaScriptEnabled: true });
+    for (const m of ours) {
+      const page = await ctx.newPage();
+      const problems = watchPage(page);
+      await page.setContent(String(m.html ?? ''), { waitUntil: 'load' });
+      await expectNoInjection(page, problems, `mail "${m.subject}"`);
+      expect(await page.locator('body').innerText()).toContain(MARK);
+      await page.close();
+    }
+    await ctx.close();
   });
 
   it('the audit trail export keeps payloads as quoted text', async () => {
