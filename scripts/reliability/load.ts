@@ -78,6 +78,9 @@ export async function runLoad(): Promise<number> {
     const curators: Credential[] = [];
     for (const who of ['curator', 'curator2', 'viewer']) curators.push({ cookie: await signInOrThrow(base, demoEmail(who)) });
 
+    // 54 sign-ins in all (admin, 3 curators, 50 analysts): under the sign-in
+    // limit of 60 a minute from one address (src/lib/auth.ts), so more
+    // connections than that come through API keys (LOAD_API_KEY_SHARE).
     const analysts: Record<string, string>[] = [];
     const keyCount = Math.round(CONNECTIONS * KEY_SHARE);
     for (let i = 0; i < CONNECTIONS; i++) {
