@@ -25,6 +25,7 @@ export default async function setup(project: TestProject) {
     DEMO_SEED: '1',
     DEMO_PASSWORD: 'ionotheca-demo',
     SKIP_BUILD: '1',
+    SIGN_IN_RATE_LIMIT: '2000',
     DATABASE_URL: '',
     SMTP_URL: '',
   };
