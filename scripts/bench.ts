@@ -138,7 +138,7 @@ interface Run {
   [extra: string]: unknown;
 }
 
-async function benchSize(n: number, seed: number): Promise<{ run: Run; index: SearchIndex; cols: StoredColumns }> {
+async function benchSize(n: number, seed: number): Promise<{ run: Run; index: SearchIndex; cols: StoredColumns; batch: Awaited<ReturnType<typeof benchBatch>> | null }> {
   log(`\n== ${n.toLocaleString('en')} spectra`);
   let t = performance.now();
   const cols = syntheticColumns(n, seed);
