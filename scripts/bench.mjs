@@ -4,5 +4,5 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
-const child = spawn(process.execPath, ['--import', 'tsx', path.join(here, 'bench.ts'), ...process.argv.slice(2)], { stdio: 'inherit' });
+const child = spawn(process.execPath, ['--expose-gc', '--import', 'tsx', path.join(here, 'bench.ts'), ...process.argv.slice(2)], { stdio: 'inherit' });
 child.on('exit', (code, signal) => process.exit(signal ? 1 : (code ?? 1)));
