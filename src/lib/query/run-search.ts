@@ -10,6 +10,9 @@ import type { Peak } from './resolve-query';
 export const HIT_CAUTION =
   'A hit is a candidate, not a confirmed identity. Confirm an identification with an authentic reference standard analysed under your laboratory\'s procedures.';
 
+/** Above this many indexed spectra a single search runs in the worker pool. */
+export const IN_THREAD_MAX_SPECTRA = 20_000;
+
 export interface ApiHit {
   rank: number;
   spectrumId: number;
@@ -67,6 +70,8 @@ export async function prepareSearch(
 
 export async function runSearch(peaks: Peak[], filters: SearchFilters, options: SearchOptions) {
   const index = getLibraryIndex();
-  const r = index.search(peaks, options, filters);
+  // A lab-sized library answers in well under a millisecond in this thread;
+  // a large one is split across the worker pool so the event loop stays free.
+  const r = index.size > IN_THREAD_MAX_SPECTRA ? await index.searchAsync(peaks, options, filters) : index.search(peaks, options, filters);
   return { hits: r.hits.map(toApiHit), searched: r.searched, tookMs: r.tookMs, libraryVersion: index.libraryVersion };
 }
