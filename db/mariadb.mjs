@@ -128,7 +128,9 @@ export async function waitUntilAnswers({ socketPath, host, port, user = 'root', 
  * @param {string} o.dataDir  the app's DATA_DIR; the database lives in DATA_DIR/mariadb
  * @param {number} o.port     loopback port (DB_PORT)
  * @param {boolean} [o.fast]  test-only durability shortcuts
- * @returns {Promise<{ port, socketPath, datadir, pid, stop: () => Promise<void>, url }>}
+ * @param {(line: string) => void} [o.log]  progress messages
+ * @param {string} [o.database]  the database to create @default 'ionotheca'
+ * @returns {Promise<{ port, socketPath, datadir, pid, child: import('node:child_process').ChildProcess, stop: () => Promise<void>, url }>}
  */
 export async function startPrivateMariadb({ dataDir, port, fast = false, log = console.log, database = 'ionotheca' }) {
   const { server, installDb } = ensureMariadbInstalled({ log });
