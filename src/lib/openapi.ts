@@ -4,11 +4,17 @@ import { z } from 'zod';
 import { API_ROUTES } from './route-manifest';
 import { APP_VERSION } from './config';
 import { searchBodySchema, interpretBodySchema, batchBodySchema } from './query/schemas';
+import { createReportSchema, patchReportSchema, reviewSchema } from './reports/schemas';
+import { patchSchema } from './curation/editSchema';
 
 const BODIES: Record<string, z.ZodTypeAny> = {
   'POST /api/search': searchBodySchema,
   'POST /api/interpret': interpretBodySchema,
   'POST /api/search/batch': batchBodySchema,
+  'POST /api/reports': createReportSchema,
+  'PATCH /api/reports/[id]': patchReportSchema,
+  'POST /api/reports/[id]/review': reviewSchema,
+  'PATCH /api/spectra/[id]': patchSchema,
 };
 
 function toJsonSchema(s: z.ZodTypeAny): unknown {
