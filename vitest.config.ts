@@ -21,7 +21,6 @@ export default defineConfig({
           globalSetup: ['tests/setup/global-db.ts'],
           testTimeout: 60_000,
           hookTimeout: 120_000,
-          fileParallelism: false,
         },
       },
       {
@@ -32,7 +31,6 @@ export default defineConfig({
           globalSetup: ['tests/setup/global-server.ts'],
           testTimeout: 90_000,
           hookTimeout: 180_000,
-          fileParallelism: false,
         },
       },
     ],

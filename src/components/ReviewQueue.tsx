@@ -4,28 +4,9 @@
 // password re-entered); it is not offered at all on one's own work.
 import { useState } from 'react';
 
-interface Diff { field: string; label: string; before: unknown; after: unknown }
-export interface ReviewItemView {
-  recordId: number;
-  version: number;
-  name: string;
-  formula: string | null;
-  nominalMass: number | null;
-  peakCount: number;
-  basePeakMz: number | null;
-  synthetic: boolean;
-  sourceFileName: string | null;
-  changeReason: string | null;
-  submittedBy: string | null;
-  submittedAt: string | null;
-  editors: string[];
-  previous: { version: number; status: string } | null;
-  diff: Diff[];
-  peaks: { changed: boolean; before: number | null; after: number; cosine: number | null; list: [number, number][] };
-  warnings: { code: string; message: string }[];
-  canApprove: boolean;
-  blockedBecause: string | null;
-}
+// Type-only: the queue's items come from the server exactly in this shape.
+export type { ReviewItem as ReviewItemView } from '../lib/curation/reviewQueue';
+import type { ReviewItem as ReviewItemView } from '../lib/curation/reviewQueue';
 
 const MEANING = 'reviewed and approved for release';
 
