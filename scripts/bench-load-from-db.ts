@@ -13,11 +13,7 @@ import { migrate } from '../src/lib/db/migrate';
 import { encodePeaks } from '../src/lib/spectra/index';
 import { rebuildLibraryIndex, getLibraryIndex, stopLibraryIndexPolling } from '../src/lib/library-index';
 import { freePort } from '../tests/setup/ports';
-
-function rng(seed: number) {
-  let s = seed >>> 0;
-  return () => ((s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32);
-}
+import { rng } from '../bench/synthetic';
 
 function syntheticPeaks(rand: () => number): [number, number][] {
   const n = 60 + Math.floor(rand() * 40);

@@ -1,16 +1,9 @@
 // Shared helpers for the search tests: a seeded PRNG and random libraries.
 import type { LibraryEntry, Peak, SpectrumStatus } from '../../../src/lib/search/types';
 
-export function rng(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+// The benchmark's seeded PRNG (mulberry32), one copy for both.
+export { rng } from '../../../bench/synthetic';
+import { rng } from '../../../bench/synthetic';
 
 const STATUSES: SpectrumStatus[] = ['released', 'released', 'released', 'in_review', 'draft'];
 const TAGS = ['solvent', 'impurity', 'flavour'];
