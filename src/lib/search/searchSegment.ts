@@ -13,6 +13,8 @@ const LN4 = Math.log(4);
  * rounding differences are ~1e-7.
  */
 const EPS = 1e-5;
+/** The same slack for the cosine's float32 accumulators (see cosineMaxScore). */
+const CEPS = 2e-5;
 /** Work of one exact rescoring, in postings read (a merge over ~2 x 80 peaks). */
 const EVAL_COST = 40;
 /** Docs per block of the one-pass modes (32 bytes of state each: 1 MiB, cache-sized). */
@@ -54,6 +56,16 @@ export interface KernelResult {
 }
 
 interface Scratch {
+  /** Cosine, per doc d: [2d] 0 not seen, > 0 partial dot, -1 scored exactly; [2d+1] sum of the read weights' squares. */
+  acc: Float32Array;
+  candD: Int32Array;
+  candV: Float64Array;
+  candS: Int32Array;
+  bucket: Int32Array;
+  hist: Float64Array;
+  out: Float64Array;
+  /** The query's weights by bin (0 elsewhere), during a cosine search. */
+  qDense: Float64Array;
   /** Per doc d, interleaved so one cache line serves a posting: [4d] dot, [4d+1] ratio or q^2 sum, [4d+2] previous ratio, [4d+3] shared count. */
   st: Float64Array;
   flag: Uint8Array;
@@ -71,6 +83,14 @@ function scratchFor(seg: Segment): Scratch {
   if (!s) {
     if (scratchCache.size >= 2) scratchCache.delete(scratchCache.keys().next().value as number);
     s = {
+      acc: new Float32Array(seg.n * 2),
+      candD: new Int32Array(seg.n),
+      candV: new Float64Array(seg.n),
+      candS: new Int32Array(seg.n),
+      bucket: new Int32Array(257),
+      hist: new Float64Array(1025),
+      out: new Float64Array(4),
+      qDense: new Float64Array(seg.nBins),
       st: new Float64Array(seg.n * 4),
       flag: new Uint8Array(seg.n),
       touched: new Int32Array(seg.n),
@@ -101,9 +121,14 @@ function evaluate(seg: Segment, q: PreparedSpectrum, d: number, generic: Generic
   const s = seg.docStart[d];
   const e = seg.docStart[d + 1];
   if (generic === null) {
-    if (withEntropy) entropyWeightsInto(seg.fRel.subarray(s, e), sc.fE);
-    // sc.fE is indexed from 0, the forward arrays from s: pass a view that lines up.
-    scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin.subarray(s, e), seg.fW.subarray(s, e), sc.fE, 0, e - s, seg.docNorm[d], withEntropy, out, at);
+    if (withEntropy) {
+      entropyWeightsInto(seg.fRel.subarray(s, e), sc.fE);
+      // sc.fE is indexed from 0, the forward arrays from s: pass views that line up.
+      scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin.subarray(s, e), seg.fW.subarray(s, e), sc.fE, 0, e - s, seg.docNorm[d], true, out, at);
+    } else {
+      // No entropy: the forward arrays in place (lE is not read).
+      scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fW, s, e, seg.docNorm[d], false, out, at);
+    }
   } else {
     const g = stageInto(seg.fBin, seg.fRel, s, e, generic.tolerance, generic.weights, generic.noiseFloor, generic.lowMassCutoff, generic.excludeBins, sc.gBins, sc.gW, sc.gE);
     scoreMerged(q.bins, q.w, q.e, q.n, q.norm, sc.gBins, sc.gW, sc.gE, 0, g.n, g.norm, withEntropy, out, at);
@@ -157,7 +182,7 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
   if (q.n === 0 || hi <= lo || seg.n === 0) return finish(seg, q, p, sc, heap, 0, 0);
   const { allow, penalty, rankBy } = p;
   const slot = SCORE_SLOT[rankBy];
-  const { pStart, pDoc, pW, pE, binMaxW, docStart } = seg;
+  const { pStart, pDoc, pW, pE } = seg;
   const { st, flag, touched } = sc;
   const out = new Float64Array(4);
   let nTouched = 0;
@@ -316,10 +341,52 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
     return done();
   }
 
-  // Cosine: MaxScore.
+  // Cosine: MaxScore over float32 accumulators (see cosineMaxScore).
+  const c = cosineMaxScore(seg, q, p, sc, heap, { tBin, tQ, tFrom, tTo });
+  postings += c.postings;
+  evaluated += c.evaluated;
+  return done();
+}
+
+interface Terms {
+  tBin: number[];
+  tQ: number[];
+  tFrom: number[];
+  tTo: number[];
+}
+
+/**
+ * Cosine by MaxScore. Query bins go from the heaviest bound (query weight x
+ * the bin's largest stored weight) down. A doc not seen yet can score at most
+ * R, the smaller of the remaining per-bin bounds' sum and the Euclidean norm
+ * of the remaining query weights (Cauchy-Schwarz: stored weights have unit
+ * norm). Once R is below the k-th exact score no new doc is admitted; the
+ * remaining bins update the docs already seen while that is cheaper than
+ * rescoring them, then every seen doc whose bound (partial dot + R) still
+ * reaches the k-th score is rescored exactly, best bounds first.
+ *
+ * Per doc the state is two float32 (8 bytes, so a million docs take 8 MB):
+ * the partial dot (0 not seen, -1 scored exactly) and the sum of squares of
+ * the doc's weights read so far, which tightens its bound. The float32
+ * rounding (at most 80 roundings of values <= 1, < 5e-6) is inside CEPS.
+ */
+function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: Scratch, heap: TopK, terms: Terms): { postings: number; evaluated: number } {
+  const { tBin, tQ, tFrom, tTo } = terms;
+  const T = tBin.length;
+  const { allow, penalty } = p;
+  const { pDoc, pW, binMaxW, docStart, fBin, fW, docNorm } = seg;
+  const acc = sc.acc;
+  const touched = sc.touched;
+  let nTouched = 0;
+  let postings = 0;
+  let evaluated = 0;
+  const lo = Math.max(0, p.lo);
+  const hi = Math.min(seg.n, p.hi);
+
   const tU = tQ.map((x, t) => x * binMaxW[tBin[t]]);
   const order = Array.from({ length: T }, (_, i) => i).sort((a, b) => tU[b] - tU[a] || tBin[a] - tBin[b]);
   const R = new Float64Array(T + 1);
+  const Q = new Float64Array(T + 1);
   {
     let s1 = 0;
     let s2 = 0;
@@ -327,19 +394,49 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
       const t = order[i];
       s1 += tU[t];
       s2 += tQ[t] * tQ[t];
-      R[i] = Math.min(s1, Math.sqrt(s2));
+      Q[i] = Math.sqrt(s2);
+      R[i] = Math.min(s1, Q[i]);
     }
   }
-  // Score the most promising seen docs exactly, to raise the k-th score.
+  const theta = () => (p.noPruning ? -Infinity : heap.threshold() - CEPS);
+  // The exact cosine of a doc through a dense copy of the query's weights: the
+  // shared peaks' products added in m/z order, as scoreMerged adds them
+  // (adding the zeros of unshared peaks changes no bit), so the value is the
+  // brute-force reference's to the last bit.
+  const qDense = sc.qDense;
+  for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < seg.nBins) qDense[q.bins[i]] = q.w[i];
+  const qNorm = q.norm;
+  const scoreDoc = (d: number) => {
+    acc[d << 1] = -1;
+    evaluated++;
+    let dot = 0;
+    for (let j = docStart[d], e = docStart[d + 1]; j < e; j++) dot += qDense[fBin[j]] * fW[j];
+    if (dot > 0 && qNorm > 0 && docNorm[d] > 0) {
+      const cos = Math.min(1, dot / (qNorm * docNorm[d]));
+      heap.push(allow[d] === 2 ? Math.max(0, cos - penalty) : cos, d);
+    }
+  };
+  // Seen docs are visited through the touched list, or by a sequential sweep
+  // of the state once most docs have been seen (cheaper than random reads).
+  const sweep = () => nTouched > (hi - lo) >> 2;
+  // Score the seen docs with the best partial dots exactly, to raise the k-th score.
   const refresh = () => {
     const pick = new TopK(p.k);
-    for (let t = 0; t < nTouched; t++) {
-      const d = touched[t];
-      if (!flag[d]) pick.push(st[d << 2], d);
-    }
-    for (let i = 0; i < pick.size; i++) scoreDoc(pick.doc[i]);
+    if (sweep()) {
+      for (let d = lo; d < hi; d++) {
+        const a = acc[d << 1];
+        if (a > 0 && (pick.size < p.k || a > pick.score[0])) pick.push(a, d);
+      }
+    } else
+      for (let t = 0; t < nTouched; t++) {
+        const d = touched[t];
+        const a = acc[d << 1];
+        if (a > 0 && (pick.size < p.k || a > pick.score[0])) pick.push(a, d);
+      }
+    for (let i = 0; i < pick.size; i++) if (acc[pick.doc[i] << 1] > 0) scoreDoc(pick.doc[i]);
   };
-  const theta = () => (p.noPruning ? -Infinity : heap.threshold() - EPS);
+
+  // Admit docs while an unseen one could still make the top k.
   let pos = 0;
   let nextRefresh = 1;
   while (pos < T && R[pos] >= theta()) {
@@ -349,13 +446,17 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
     postings += end - tFrom[t];
     for (let j = tFrom[t]; j < end; j++) {
       const d = pDoc[j];
-      if (allow[d] === 0) continue;
-      const o = d << 2;
-      if (st[o + 3] === 0) {
+      const o = d << 1;
+      const a = acc[o];
+      const w = pW[j];
+      if (a > 0) {
+        acc[o] = a + x * w;
+        acc[o + 1] += w * w;
+      } else if (a === 0 && allow[d] !== 0) {
         touched[nTouched++] = d;
-        st[o + 3] = 1;
+        acc[o] = Math.max(x * w, 1e-30);
+        acc[o + 1] = w * w;
       }
-      st[o] += x * pW[j];
     }
     pos++;
     if (pos === nextRefresh) {
@@ -364,16 +465,24 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
     }
   }
   refresh();
+
   // No new doc can make it now. Update the seen docs with further bins while a
   // bin's postings cost less than the rescoring they could spare (estimated
   // from a histogram of the partial dots taken once, as they only grow).
   const H = 1024;
-  const hist = new Float64Array(H + 1);
+  const hist = sc.hist;
+  hist.fill(0);
   if (pos < T) {
-    for (let t = 0; t < nTouched; t++) {
-      const d = touched[t];
-      if (!flag[d]) hist[Math.min(H, Math.max(0, Math.floor(st[d << 2] * H)))]++;
-    }
+    if (sweep()) {
+      for (let d = lo; d < hi; d++) {
+        const a = acc[d << 1];
+        if (a > 0) hist[Math.min(H, Math.floor(a * H))]++;
+      }
+    } else
+      for (let t = 0; t < nTouched; t++) {
+        const a = acc[touched[t] << 1];
+        if (a > 0) hist[Math.min(H, Math.floor(a * H))]++;
+      }
     for (let i = H - 1; i >= 0; i--) hist[i] += hist[i + 1];
   }
   const estimate = (rest: number) => hist[Math.min(H, Math.max(0, Math.floor((theta() - rest) * H)))];
@@ -384,33 +493,84 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
     const end = tTo[t];
     postings += end - tFrom[t];
     for (let j = tFrom[t]; j < end; j++) {
-      const d = pDoc[j];
-      const o = d << 2;
-      if (st[o + 3] === 0) continue;
-      st[o] += x * pW[j];
+      const o = pDoc[j] << 1;
+      const a = acc[o];
+      if (a > 0) {
+        const w = pW[j];
+        acc[o] = a + x * w;
+        acc[o + 1] += w * w;
+      }
     }
     pos++;
     pending = pos < T ? estimate(R[pos]) : 0;
   }
+
+  // Rescore the seen docs whose bound still reaches the k-th score, in
+  // buckets of their bound from the best down. A doc's bound is its partial
+  // dot plus the smaller of R and, by Cauchy-Schwarz on the bins not yet
+  // read, |query weights left| x sqrt(|doc weights|^2 - those already read)
+  // (1e-5 covers the float32 sum of squares).
   const rest = R[pos];
-  const th = theta();
-  const cd: number[] = [];
-  const cu: number[] = [];
-  for (let t = 0; t < nTouched; t++) {
-    const d = touched[t];
-    if (flag[d]) continue;
-    const v = st[d << 2] + rest - (allow[d] === 2 ? penalty : 0);
-    if (v >= th) {
-      cd.push(d);
-      cu.push(v);
+  const qRest = Q[pos];
+  const th0 = theta();
+  const candD = sc.candD;
+  const candV = sc.candV;
+  let nCand = 0;
+  let maxV = -Infinity;
+  const whole = sweep();
+  for (let t = whole ? lo : 0, tEnd = whole ? hi : nTouched; t < tEnd; t++) {
+    const d = whole ? t : touched[t];
+    const a = acc[d << 1];
+    // Cheap test first: the bound is at most a + rest.
+    if (a <= 0 || a + rest < th0) continue;
+    const nd = docNorm[d];
+    const v = a + Math.min(rest, qRest * Math.sqrt(Math.max(0, nd * nd - acc[(d << 1) + 1]) + 1e-5)) - (allow[d] === 2 ? penalty : 0);
+    if (v >= th0) {
+      candD[nCand] = d;
+      candV[nCand++] = v;
+      if (v > maxV) maxV = v;
     }
   }
-  const idx = Array.from({ length: cd.length }, (_, i) => i).sort((a, b) => cu[b] - cu[a]);
-  for (const i of idx) {
-    if (cu[i] < theta()) break;
-    scoreDoc(cd[i]);
+  if (nCand > 0) {
+    const NB = 256;
+    const floor = th0 === -Infinity ? 0 : th0;
+    const width = (maxV - floor) / NB || 1;
+    const count = sc.bucket;
+    count.fill(0);
+    for (let i = 0; i < nCand; i++) count[NB - 1 - Math.min(NB - 1, Math.floor((candV[i] - floor) / width))]++;
+    // Counting sort, best bucket first.
+    let sum = 0;
+    for (let b = 0; b <= NB; b++) {
+      const c = count[b];
+      count[b] = sum;
+      sum += c;
+    }
+    const sorted = sc.candS;
+    for (let i = 0; i < nCand; i++) sorted[count[NB - 1 - Math.min(NB - 1, Math.floor((candV[i] - floor) / width))]++] = i;
+    for (let s = 0; s < nCand; s++) {
+      const i = sorted[s];
+      const v = candV[i];
+      const th = theta();
+      // Buckets run best first: once a bucket's top is below the k-th score, so are all later ones.
+      if (v < th) {
+        const bucketTop = floor + (Math.floor((v - floor) / width) + 1) * width;
+        if (bucketTop < th) break;
+        continue;
+      }
+      if (acc[candD[i] << 1] > 0) scoreDoc(candD[i]);
+    }
   }
-  return done();
+
+  // Clear the state for the next search.
+  for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < seg.nBins) qDense[q.bins[i]] = 0;
+  if (sweep()) acc.fill(0, lo << 1, hi << 1);
+  else
+    for (let t = 0; t < nTouched; t++) {
+      const o = touched[t] << 1;
+      acc[o] = 0;
+      acc[o + 1] = 0;
+    }
+  return { postings, evaluated };
 }
 
 /** Reference over a segment: score every allowed doc in the range exactly (no index, no pruning). */
