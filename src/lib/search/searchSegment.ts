@@ -274,11 +274,16 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
             const rho = w * invX;
             const o = d << 2;
             const c = st[o + 3];
-            if (c === 0) touched[nTouched++] = d;
-            else {
-              const r = rho / st[o + 2];
-              st[o + 1] += r <= 1 ? r : 1 / r;
-            }
+            touched[nTouched] = d;
+            nTouched += c === 0 ? 1 : 0;
+            // min(r, 1/r) of r = rho / previous rho as min / max, written
+            // (s - g) / (s + g) with s the sum and g the absolute difference:
+            // no branch (r <= 1 mispredicts half the time, and so do Math.min
+            // and Math.max), and 0 for a doc's first shared peak (prev = 0).
+            const prev = st[o + 2];
+            const sum = rho + prev;
+            const gap = Math.abs(rho - prev);
+            st[o + 1] += (sum - gap) / (sum + gap);
             st[o + 2] = rho;
             st[o + 3] = c + 1;
             st[o] += x * w;
