@@ -424,10 +424,23 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   // Seen docs are visited through the touched list, or by a sequential sweep
   // of the state once most docs have been seen (cheaper than random reads).
   const sweep = () => nTouched > (hi - lo) >> 2;
-  // Score the seen docs with the best partial dots exactly, to raise the k-th score.
+  // Score the seen docs with the best partial dots exactly, to raise the k-th
+  // score. After the first refresh, the docs whose partial dot rises above
+  // `cut` (the k-th partial dot of the last refresh; every doc left unscored
+  // was at or below it) are listed in `hot`, and the next refresh picks from
+  // that list alone instead of every seen doc.
+  const hot = sc.candD;
+  let nHot = 0;
+  let cut = Infinity;
   const refresh = () => {
     const pick = new TopK(p.k);
-    if (sweep()) {
+    if (cut !== Infinity) {
+      for (let i = 0; i < nHot; i++) {
+        const d = hot[i];
+        const a = acc[d << 1];
+        if (a > 0 && (pick.size < p.k || a > pick.score[0])) pick.push(a, d);
+      }
+    } else if (sweep()) {
       for (let d = lo; d < hi; d++) {
         const a = acc[d << 1];
         if (a > 0 && (pick.size < p.k || a > pick.score[0])) pick.push(a, d);
@@ -438,6 +451,8 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
         const a = acc[d << 1];
         if (a > 0 && (pick.size < p.k || a > pick.score[0])) pick.push(a, d);
       }
+    nHot = 0;
+    cut = pick.size < p.k ? 0 : pick.score[0];
     for (let i = 0; i < pick.size; i++) if (acc[pick.doc[i] << 1] > 0) scoreDoc(pick.doc[i]);
   };
 
@@ -455,12 +470,16 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
       const a = acc[o];
       const w = pW[j];
       if (a > 0) {
-        acc[o] = a + x * w;
+        const na = a + x * w;
+        acc[o] = na;
         acc[o + 1] += w * w;
+        if (a <= cut && na > cut) hot[nHot++] = d;
       } else if (a === 0 && allow[d] !== 0) {
         touched[nTouched++] = d;
-        acc[o] = Math.max(x * w, 1e-30);
+        const na = Math.max(x * w, 1e-30);
+        acc[o] = na;
         acc[o + 1] = w * w;
+        if (na > cut) hot[nHot++] = d;
       }
     }
     pos++;
