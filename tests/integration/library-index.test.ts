@@ -9,6 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import crypto from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { useTestDatabase } from '../helpers/db';
+import { packUnchecked } from '../helpers/packed-peaks';
 import { closeSequelize } from '../../src/lib/db/sequelize';
 import { bumpLibraryVersion } from '../../src/lib/library-state';
 import {
@@ -35,19 +36,6 @@ const RUN = crypto.randomBytes(3).toString('hex');
 const TAG = `load-${RUN}`;
 const EXTRA = `load-extra-${RUN}`;
 
-/** encodePeaks's layout without its checks, so a stored list may hold NaN as well. */
-function pack(peaks: readonly Peak[]): Buffer {
-  const n = peaks.length;
-  const b = Buffer.alloc(8 + 12 * n);
-  b.write('IPK1', 0, 'ascii');
-  b.writeUInt32LE(n, 4);
-  peaks.forEach(([mz, y], i) => {
-    b.writeDoubleLE(mz, 8 + 8 * i);
-    b.writeFloatLE(y, 8 + 8 * n + 4 * i);
-  });
-  return b;
-}
-
 interface Spec {
   formula: string | null;
   nominalMass: number | null;
@@ -72,7 +60,7 @@ const SPECS: Spec[] = [
   // duplicate m/z and zero-intensity peaks
   { formula: 'C7H8', nominalMass: 92, ihd: 4, elements: 'C,H', tags: [TAG, EXTRA], versions: [{ status: 'released', peaks: encodePeaks([[39, 10], [65, 0], [91, 60], [91, 40], [92, 70], [93, 0]]) }] },
   // unsorted, non-integer m/z landing in one bin, NaN and negative entries
-  { formula: 'C6H6', nominalMass: 78, ihd: 4, elements: 'C,H', tags: [TAG], versions: [{ status: 'in_review', peaks: pack([[78.0464, 100], [51.0229, 18], [52.03, 20], [NaN, 5], [50.6, 9], [77.5, 23], [-3, 2], [39.4, 0]]), ri: [{ phase: 'non-polar', value: 653 }] }] },
+  { formula: 'C6H6', nominalMass: 78, ihd: 4, elements: 'C,H', tags: [TAG], versions: [{ status: 'in_review', peaks: packUnchecked([[78.0464, 100], [51.0229, 18], [52.03, 20], [NaN, 5], [50.6, 9], [77.5, 23], [-3, 2], [39.4, 0]]), ri: [{ phase: 'non-polar', value: 653 }] }] },
   // profile data, which the index centroids
   {
     formula: 'C4H10O', nominalMass: 74, ihd: 0, elements: 'C,H,O', tags: [TAG],

@@ -6,25 +6,13 @@ import { StoredColumnsBuilder } from '../../src/lib/library-columns';
 import { storeSpectrum } from '../../src/lib/search/prepare';
 import { SearchIndex } from '../../src/lib/search/SearchIndex';
 import { closeSearchPool } from '../../src/lib/search/pool';
-import { SCORE_NAMES, type LibraryEntry, type Peak, type SearchFilters } from '../../src/lib/search/types';
+import { SCORE_NAMES, type LibraryEntry, type Peak } from '../../src/lib/search/types';
 import type { EntryMeta } from '../../src/lib/search/filters';
 import { decodePeaks, encodePeaks } from '../../src/lib/spectra/index';
-import { noisyQuery, randomLibrary, rng } from './search/helpers';
+import { FILTER_CASES, noisyQuery, randomLibrary, rng } from './search/helpers';
+import { packUnchecked } from '../helpers/packed-peaks';
 
 afterAll(() => closeSearchPool());
-
-/** The packed layout of encodePeaks, without its checks, so NaN and Infinity can be stored too. */
-function pack(peaks: readonly Peak[]): Buffer {
-  const n = peaks.length;
-  const b = Buffer.alloc(8 + 12 * n);
-  b.write('IPK1', 0, 'ascii');
-  b.writeUInt32LE(n, 4);
-  peaks.forEach(([mz, y], i) => {
-    b.writeDoubleLE(mz, 8 + 8 * i);
-    b.writeFloatLE(y, 8 + 8 * n + 4 * i);
-  });
-  return b;
-}
 
 /** At an odd offset of a larger buffer, as the database driver hands BLOBs out. */
 function unaligned(b: Buffer): Buffer {
@@ -119,14 +107,14 @@ describe('StoredColumnsBuilder', () => {
   });
 
   it('equals storeSpectrum(decodePeaks(packed)) on the edge cases: duplicates, zero intensities, unsorted, non-integer m/z, profile data', () => {
-    const list = Object.values(EDGE_CASES).map((p) => pack(p));
+    const list = Object.values(EDGE_CASES).map((p) => packUnchecked(p));
     for (const tolerance of TOLERANCES) for (const noiseFloor of NOISE_FLOORS) checkAgainstStoreSpectrum(list, tolerance, noiseFloor);
     // Each case alone too, so no case hides behind a neighbour's offsets.
     for (const [name, peaks] of Object.entries(EDGE_CASES)) {
       const b = new StoredColumnsBuilder();
-      b.add(1, 1, pack(peaks));
+      b.add(1, 1, packUnchecked(peaks));
       const cols = b.finish();
-      const want = storeSpectrum(decodePeaks(pack(peaks)));
+      const want = storeSpectrum(decodePeaks(packUnchecked(peaks)));
       expectSameArray(Int32Array.from(cols.bins as Int32Array), want.bins, name);
       expectSameArray(Float32Array.from(cols.rel), want.rel, name);
     }
@@ -145,7 +133,7 @@ describe('StoredColumnsBuilder', () => {
         peaks.push([mz, y]);
       }
       if (r() < 0.6) peaks.sort((a, b) => a[0] - b[0]);
-      list.push(pack(peaks));
+      list.push(packUnchecked(peaks));
     }
     for (const tolerance of TOLERANCES) for (const noiseFloor of NOISE_FLOORS) checkAgainstStoreSpectrum(list, tolerance, noiseFloor);
   });
@@ -190,17 +178,6 @@ describe('StoredColumnsBuilder', () => {
   });
 });
 
-const FILTERS: (SearchFilters | undefined)[] = [
-  undefined,
-  { status: ['released', 'in_review', 'draft'] },
-  { formula: 'C6H6' },
-  { elements: ['Cl'] },
-  { excludeElements: ['Cl'], ihdMin: 1, ihdMax: 4 },
-  { massMin: 60, massMax: 180, tags: ['solvent'] },
-  { ri: { value: 1200, window: 150, phase: 'non-polar' } },
-  { ri: { value: 1200, window: 150, phase: 'non-polar', penalty: 0.2 } },
-];
-
 function metaOf(e: LibraryEntry): EntryMeta {
   const { peaks: _peaks, ...meta } = e;
   return meta;
@@ -225,7 +202,7 @@ describe('SearchIndex.fromColumns over StoredColumnsBuilder', () => {
       Object.values(EDGE_CASES).forEach((peaks, i) => {
         entries.push({ ...entries[i], spectrumId: 90_000 + i, recordId: 5 + i * 3, peaks });
       });
-      const packed = entries.map((e) => pack(e.peaks));
+      const packed = entries.map((e) => packUnchecked(e.peaks));
       const decoded = entries.map((e, i) => ({ ...e, peaks: decodePeaks(packed[i]) }));
       const old = SearchIndex.build(decoded);
       const builder = new StoredColumnsBuilder();
@@ -241,7 +218,7 @@ describe('SearchIndex.fromColumns over StoredColumnsBuilder', () => {
       const r = rng(seed * 31);
       for (let qi = 0; qi < 6; qi++) {
         const q = noisyQuery(r, decoded[Math.floor(r() * decoded.length)].peaks);
-        for (const filters of FILTERS) {
+        for (const filters of FILTER_CASES) {
           for (const rankBy of SCORE_NAMES) {
             const options = { rankBy, limit: 40 };
             const a = fast.search(q, options, filters);

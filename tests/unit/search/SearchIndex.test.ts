@@ -2,21 +2,10 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { SearchIndex } from '../../../src/lib/search/SearchIndex';
 import { bruteForceSearch } from '../../../src/lib/search/bruteForceSearch';
 import { closeSearchPool } from '../../../src/lib/search/pool';
-import { SCORE_NAMES, type SearchFilters, type SearchOptions } from '../../../src/lib/search/types';
-import { keyOf, noisyQuery, randomLibrary, rng } from './helpers';
+import { SCORE_NAMES, type SearchOptions } from '../../../src/lib/search/types';
+import { FILTER_CASES, keyOf, noisyQuery, randomLibrary, rng } from './helpers';
 
 afterAll(() => closeSearchPool());
-
-const FILTERS: (SearchFilters | undefined)[] = [
-  undefined,
-  { status: ['released', 'in_review', 'draft'] },
-  { formula: 'C6H6' },
-  { elements: ['Cl'] },
-  { excludeElements: ['Cl'], ihdMin: 1, ihdMax: 4 },
-  { massMin: 60, massMax: 180, tags: ['solvent'] },
-  { ri: { value: 1200, window: 150, phase: 'non-polar' } },
-  { ri: { value: 1200, window: 150, phase: 'non-polar', penalty: 0.2 } },
-];
 
 describe('SearchIndex', () => {
   it('equals brute force for every ranking score, over seeded random libraries (property test)', () => {
@@ -41,7 +30,7 @@ describe('SearchIndex', () => {
     const entries = randomLibrary(21, 600);
     const index = SearchIndex.build(entries);
     const r = rng(8);
-    for (const filters of FILTERS) {
+    for (const filters of FILTER_CASES) {
       for (let qi = 0; qi < 4; qi++) {
         const q = noisyQuery(r, entries[Math.floor(r() * entries.length)].peaks);
         for (const rankBy of SCORE_NAMES) {

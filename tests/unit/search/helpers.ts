@@ -1,5 +1,5 @@
 // Shared helpers for the search tests: a seeded PRNG and random libraries.
-import type { LibraryEntry, Peak, SpectrumStatus } from '../../../src/lib/search/types';
+import type { LibraryEntry, Peak, SearchFilters, SpectrumStatus } from '../../../src/lib/search/types';
 
 // The benchmark's seeded PRNG (mulberry32), one copy for both.
 export { rng } from '../../../bench/synthetic';
@@ -53,3 +53,15 @@ export function noisyQuery(r: () => number, peaks: Peak[]): Peak[] {
 export function keyOf(hits: { spectrumId: number; score: number }[]): string[] {
   return hits.map((h) => `${h.spectrumId}:${h.score}`);
 }
+
+/** Filter sets that exercise every pre-filter, RI penalty included (for randomLibrary entries). */
+export const FILTER_CASES: (SearchFilters | undefined)[] = [
+  undefined,
+  { status: ['released', 'in_review', 'draft'] },
+  { formula: 'C6H6' },
+  { elements: ['Cl'] },
+  { excludeElements: ['Cl'], ihdMin: 1, ihdMax: 4 },
+  { massMin: 60, massMax: 180, tags: ['solvent'] },
+  { ri: { value: 1200, window: 150, phase: 'non-polar' } },
+  { ri: { value: 1200, window: 150, phase: 'non-polar', penalty: 0.2 } },
+];
