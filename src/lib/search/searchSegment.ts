@@ -453,7 +453,13 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
       }
     nHot = 0;
     cut = pick.size < p.k ? 0 : pick.score[0];
-    for (let i = 0; i < pick.size; i++) if (acc[pick.doc[i] << 1] > 0) scoreDoc(pick.doc[i]);
+    // A pick whose bound is already below the k-th score never reaches it (bounds only fall): leave it.
+    const rest = R[pos];
+    for (let i = 0; i < pick.size; i++) {
+      const d = pick.doc[i];
+      const a = acc[d << 1];
+      if (a > 0 && a + rest >= theta()) scoreDoc(d);
+    }
   };
 
   // Admit docs while an unseen one could still make the top k.
@@ -496,16 +502,17 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   const H = 1024;
   const hist = sc.hist;
   hist.fill(0);
+  // (An estimate only, so one seen doc in four is counted, four times.)
   if (pos < T) {
     if (sweep()) {
-      for (let d = lo; d < hi; d++) {
+      for (let d = lo; d < hi; d += 4) {
         const a = acc[d << 1];
-        if (a > 0) hist[Math.min(H, Math.floor(a * H))]++;
+        if (a > 0) hist[Math.min(H, Math.floor(a * H))] += 4;
       }
     } else
-      for (let t = 0; t < nTouched; t++) {
+      for (let t = 0; t < nTouched; t += 4) {
         const a = acc[touched[t] << 1];
-        if (a > 0) hist[Math.min(H, Math.floor(a * H))]++;
+        if (a > 0) hist[Math.min(H, Math.floor(a * H))] += 4;
       }
     for (let i = H - 1; i >= 0; i--) hist[i] += hist[i + 1];
   }
