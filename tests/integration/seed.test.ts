@@ -2,11 +2,10 @@
 // database is shared with other files): it fills an empty database with the
 // scenario in one go, marks every spectrum synthetic, and refuses, touching
 // nothing, a database that already holds a user or a record.
-import { describe, it, expect, beforeAll, afterAll, inject } from 'vitest';
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { QueryTypes, type Sequelize } from 'sequelize';
+import { createScratchDatabase, dropScratchDatabase } from '../helpers/db';
 import { verifyPassword } from 'better-auth/crypto';
-import { createSequelize, setSequelize } from '../../src/lib/db/sequelize';
-import { migrate } from '../../src/lib/db/migrate';
 import { verifyAuditChain } from '../../src/lib/audit';
 import { checkData } from '../../src/lib/ops/check-data';
 import { decodePeaks, peakContentHash } from '../../src/lib/spectra/index';
@@ -14,8 +13,6 @@ import { seedDemo, DEMO_USERS } from '../../seeds/index';
 
 const PASSWORD = 'seed-test-password-7';
 const DB = 'seed_test';
-const port = inject('dbPort');
-const url = (db: string) => `mariadb://root@127.0.0.1:${port}/${db}`;
 
 let s: Sequelize;
 type Row = Record<string, any>;
@@ -32,23 +29,10 @@ async function rowCounts() {
 }
 
 beforeAll(async () => {
-  const admin = createSequelize(url('ionotheca'));
-  await admin.query(`DROP DATABASE IF EXISTS ${DB}`);
-  await admin.query(`CREATE DATABASE ${DB} CHARACTER SET utf8mb4 COLLATE utf8mb4_bin`);
-  await admin.close();
-  s = createSequelize(url(DB));
-  await migrate(s);
-  // The audit chain and check-data read through the process's instance.
-  setSequelize(s);
+  s = await createScratchDatabase(DB);
 }, 120_000);
 
-afterAll(async () => {
-  setSequelize(null);
-  await s?.close();
-  const admin = createSequelize(url('ionotheca'));
-  await admin.query(`DROP DATABASE IF EXISTS ${DB}`);
-  await admin.close();
-});
+afterAll(() => dropScratchDatabase(DB, s));
 
 describe('seedDemo', () => {
   it('refuses a database that already has a user, and changes nothing', async () => {

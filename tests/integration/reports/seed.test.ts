@@ -1,10 +1,9 @@
 // The demo scenario's reports, in a database of their own: one in each state,
 // written by the invented people, citing released demo records, the approved
 // one sealed with a valid HMAC.
-import { describe, it, expect, beforeAll, afterAll, inject } from 'vitest';
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { createSequelize, setSequelize } from '../../../src/lib/db/sequelize';
-import { migrate } from '../../../src/lib/db/migrate';
+import { createScratchDatabase, dropScratchDatabase } from '../../helpers/db';
 import { verifyAuditChain } from '../../../src/lib/audit';
 import { getReportView } from '../../../src/lib/reports/view';
 import { parseRoles } from '../../../src/lib/roles';
@@ -14,30 +13,16 @@ import { seedDemoReports } from '../../../seeds/reports';
 process.env.REPORT_SIGNING_KEY ??= 'test-report-signing-key-0123456789abcdef';
 process.env.AUTH_SECRET ??= 'test-auth-secret-0123456789abcdef0123456789';
 const DB = 'seed_reports_test';
-const port = inject('dbPort');
-const url = (db: string) => `mariadb://root@127.0.0.1:${port}/${db}`;
 let s: Sequelize;
 type Row = Record<string, any>;
 
 beforeAll(async () => {
-  const admin = createSequelize(url('ionotheca'));
-  await admin.query(`DROP DATABASE IF EXISTS ${DB}`);
-  await admin.query(`CREATE DATABASE ${DB} CHARACTER SET utf8mb4 COLLATE utf8mb4_bin`);
-  await admin.close();
-  s = createSequelize(url(DB));
-  await migrate(s);
-  setSequelize(s);
+  s = await createScratchDatabase(DB);
   const r = await seedDemo(s, { password: 'seed-reports-password-1' });
   expect(r.seeded).toBe(true);
 }, 180_000);
 
-afterAll(async () => {
-  setSequelize(null);
-  await s?.close();
-  const admin = createSequelize(url('ionotheca'));
-  await admin.query(`DROP DATABASE IF EXISTS ${DB}`);
-  await admin.close();
-});
+afterAll(() => dropScratchDatabase(DB, s));
 
 describe('demo reports', () => {
   it('has a report in every state, by the demo people', async () => {
