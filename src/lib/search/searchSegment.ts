@@ -63,7 +63,6 @@ interface Scratch {
   candS: Int32Array;
   bucket: Int32Array;
   hist: Float64Array;
-  out: Float64Array;
   /** The query's weights by bin (0 elsewhere), during a cosine search. */
   qDense: Float64Array;
   /** Per doc d, interleaved so one cache line serves a posting: [4d] dot, [4d+1] ratio or q^2 sum, [4d+2] previous ratio, [4d+3] shared count. */
@@ -89,7 +88,6 @@ function scratchFor(seg: Segment): Scratch {
       candS: new Int32Array(seg.n),
       bucket: new Int32Array(257),
       hist: new Float64Array(1025),
-      out: new Float64Array(4),
       qDense: new Float64Array(seg.nBins),
       st: new Float64Array(seg.n * 4),
       flag: new Uint8Array(seg.n),
