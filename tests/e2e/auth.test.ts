@@ -4,7 +4,7 @@
 import { describe, it, expect, beforeAll, afterAll, inject } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import mariadb from 'mariadb';
-import { launchBrowser, watchPage, screenshot } from '../helpers/browser';
+import { launchBrowser, islandsHydrated, watchPage, screenshot } from '../helpers/browser';
 import { can, capabilitiesOf, type Role } from '../../src/lib/roles';
 import { base, call, callJson, demoEmail, DEMO_PASSWORD, DEMO_USERS, issueKey, latestMail, linkIn, sessionFor, signIn, usersByEmail } from '../helpers/auth';
 
@@ -26,6 +26,7 @@ async function navLabels(page: Page): Promise<string[]> {
 async function signInThroughForm(page: Page, email: string, password: string) {
   await page.goto(`${base()}/sign-in`);
   await page.waitForSelector('[data-testid=sign-in-form]');
+  await islandsHydrated(page);
   await page.fill('#email', email);
   await page.fill('#password', password);
   await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 20_000, waitUntil: 'domcontentloaded' }), page.click('button[type=submit]')]);
@@ -65,6 +66,7 @@ describe('sign-in page', () => {
     const res = await page.goto(`${base()}/sign-in`);
     expect(res?.status()).toBe(200);
     await page.waitForSelector('[data-testid=sign-in-form]');
+    await islandsHydrated(page);
     await page.waitForLoadState('networkidle');
     expect(problems.console).toEqual([]);
     expect(problems.pageErrors).toEqual([]);
@@ -152,6 +154,7 @@ describe('pages that work signed out', () => {
     const c = await page.goto(`${base()}/reset-password`);
     expect(c?.status()).toBe(200);
     await page.waitForSelector('[data-testid=request-reset-form]');
+    await islandsHydrated(page);
     expect(problems.pageErrors).toEqual([]);
     await ctx.close();
   });
@@ -169,6 +172,7 @@ describe('invitation and password reset through the local mailbox', () => {
     await signInThroughForm(page, demoEmail('admin'), DEMO_PASSWORD);
     await page.goto(`${base()}/admin`);
     await page.waitForSelector('[data-testid=users-table] [data-testid=user-row]');
+    await islandsHydrated(page);
     await page.fill('#invite-email', email);
     await page.fill('#invite-name', 'Noor Analyst');
     await page.uncheck('#invite-viewer');
@@ -190,6 +194,7 @@ describe('invitation and password reset through the local mailbox', () => {
     const gp = await guest.newPage();
     await gp.goto(invitationLink);
     await gp.waitForSelector('[data-testid=accept-invitation-form]');
+    await islandsHydrated(gp);
     expect(await gp.locator('#invite-email').inputValue()).toBe(email);
     await gp.fill('#new-password', 'too short');
     await gp.fill('#confirm-password', 'too short');
@@ -227,6 +232,7 @@ describe('invitation and password reset through the local mailbox', () => {
     const before = (await callJson({ cookie: adminCookie }, 'GET', `/api/admin/mail?to=${encodeURIComponent(email)}&limit=1`)).body.items[0]?.id ?? 0;
     await page.goto(`${base()}/reset-password`);
     await page.waitForSelector('[data-testid=request-reset-form]');
+    await islandsHydrated(page);
     await page.fill('#reset-email', email);
     await page.click('button[type=submit]');
     await page.waitForSelector('[data-testid=reset-requested]');
@@ -234,6 +240,7 @@ describe('invitation and password reset through the local mailbox', () => {
     const link = linkIn(mail.text, '/reset-password');
     await page.goto(link);
     await page.waitForSelector('[data-testid=new-password-form]');
+    await islandsHydrated(page);
     const newPassword = 'an even longer new password 2';
     await page.fill('#new-password', newPassword);
     await page.fill('#confirm-password', newPassword);
@@ -334,6 +341,7 @@ describe('API keys', () => {
     await signInThroughForm(page, demoEmail('admin'), DEMO_PASSWORD);
     await page.goto(`${base()}/admin/keys`);
     await page.waitForSelector('#key-user option:nth-child(2)', { state: 'attached' });
+    await islandsHydrated(page);
     const analystOption = await page.locator('#key-user option', { hasText: demoEmail('analyst') }).getAttribute('value');
     await page.selectOption('#key-user', analystOption!);
     await page.fill('#key-name', 'screen test key');

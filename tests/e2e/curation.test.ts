@@ -7,7 +7,7 @@
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import crypto from 'node:crypto';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, baseUrl, watchPage, screenshot } from '../helpers/browser';
+import { launchBrowser, baseUrl, islandsHydrated, watchPage, screenshot } from '../helpers/browser';
 
 let browser: Browser;
 const contexts: BrowserContext[] = [];
@@ -27,7 +27,7 @@ async function pageAs(who: string): Promise<Page> {
     // the shared signInAs may type before the form's island hydrates (hydration then empties
     // the fields): open the page and wait for hydration first, then use it
     await page.goto(`${baseUrl()}/sign-in`);
-    await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0, null, { timeout: 20_000 });
+    await islandsHydrated(page);
     await page.fill('#email', `${who}@demo.ionotheca.test`);
     await page.fill('#password', 'ionotheca-demo');
     await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 20000 }), page.click('button[type=submit]')]);
@@ -63,7 +63,7 @@ describe('curation in the browser', () => {
     await page.goto(`${baseUrl()}/import`);
     await page.waitForSelector('[data-testid=drop-zone]');
     // wait for the island to hydrate before dropping
-    await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0);
+    await islandsHydrated(page);
     // record every value each progress bar shows, to see them move to the end
     await page.evaluate(() => {
       (window as any).__progress = {};
@@ -137,6 +137,7 @@ describe('curation in the browser', () => {
     expect(wrong.status()).toBe(403);
 
     await page.goto(`${baseUrl()}/review`);
+    await islandsHydrated(page);
     for (const id of recordIds) {
       const card = page.locator(`[data-testid=review-item][data-record-id="${id}"]`);
       await card.waitFor();
@@ -195,6 +196,8 @@ describe('curation in the browser', () => {
     const up = await page.request.post(`${baseUrl()}/api/imports`, { headers: { origin: baseUrl() }, multipart: { files: { name: 'edit-me.jdx', mimeType: 'text/plain', buffer: Buffer.from(text) } } });
     const id = (await up.json()).files[0].spectra[0].id as number;
     await page.goto(`${baseUrl()}/library/${id}`);
+    // the editor's island is client:idle: a click before it hydrates is lost
+    await islandsHydrated(page);
     await page.locator('[data-testid=record-edit] button').first().click();
     const form = page.locator('[data-testid=record-edit-form]');
     await form.waitFor();

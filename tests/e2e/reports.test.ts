@@ -7,7 +7,7 @@ import { describe, it, expect, beforeAll, afterAll, inject } from 'vitest';
 import zlib from 'node:zlib';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { QueryTypes } from 'sequelize';
-import { launchBrowser, baseUrl, signInAs, watchPage, screenshot } from '../helpers/browser';
+import { launchBrowser, baseUrl, islandsHydrated, signInAs, watchPage, screenshot } from '../helpers/browser';
 import { createSequelize } from '../../src/lib/db/sequelize';
 
 let browser: Browser;
@@ -122,6 +122,7 @@ describe('identification reports in the browser', () => {
       const peakText = (rec.peaks as [number, number][]).map(([mz, i]) => `${mz} ${Math.round(i * 100) / 100}`).join('\n');
 
       await page.goto(`${baseUrl()}/identify`);
+      await islandsHydrated(page);
       await page.fill('#peak-list', peakText);
       await page.click('[data-testid=search-button]');
       await page.waitForSelector('[data-testid=hit-row]', { timeout: 30_000 });
@@ -161,6 +162,7 @@ describe('identification reports in the browser', () => {
       const api = await (await page.request.get(`${baseUrl()}/api/reports/${reportId}`)).json();
       const alternatives = (api.criteria.alternatives as { name: string }[]).map((x) => x.name);
       await page.goto(`${baseUrl()}/reports/${reportId}`);
+      await islandsHydrated(page);
       await page.click('[data-testid=edit-report]');
       await page.selectOption('select[name=conclusion]', 'tentative');
       await page.fill('textarea[name=reasoning]', `Closest library match; no standard run yet.${alternatives.length ? ` Also considered: ${alternatives.join(', ')}.` : ''}`);
@@ -176,6 +178,7 @@ describe('identification reports in the browser', () => {
     try {
       const page = c.page;
       await page.goto(`${baseUrl()}/reports/${reportId}`);
+      await islandsHydrated(page);
       await page.fill('[data-testid=sign-password]', 'not-the-password');
       await page.click('[data-testid=approve-report]');
       await page.waitForSelector('[data-testid=action-error]');

@@ -6,7 +6,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import path from 'node:path';
 import type { Browser, Page, Response } from 'playwright-core';
-import { baseUrl, launchBrowser, screenshot, signInAs, watchPage, type PageProblems } from '../helpers/browser';
+import { baseUrl, islandsHydrated, launchBrowser, screenshot, signInAs, watchPage, type PageProblems } from '../helpers/browser';
 
 let browser: Browser;
 let analyst: Page;
@@ -32,10 +32,6 @@ function watchAssets(page: Page) {
   });
 }
 
-/** Wait until the page's islands have hydrated (Astro drops the `ssr` attribute then), so typing reaches React. */
-async function hydrated(page: Page) {
-  await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0, undefined, { timeout: 20_000 });
-}
 
 async function newSignedInPage(who: string): Promise<[Page, PageProblems]> {
   const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
@@ -66,7 +62,7 @@ describe('Identify', () => {
   it('finds the demo record at rank 1 from its pasted peak list', async () => {
     await analyst.goto(`${baseUrl()}/identify`);
     await analyst.waitForSelector('#peak-list');
-    await hydrated(analyst);
+    await islandsHydrated(analyst);
     expect(await analyst.locator('label[for=peak-list]').textContent()).toBe('Peak list');
     await analyst.fill('#peak-list', toluene.peaks.map(([mz, i]) => `${mz} ${i}`).join('\n'));
     await analyst.getByRole('button', { name: 'Search', exact: true }).click();
@@ -116,7 +112,7 @@ describe('Identify', () => {
   it('reads an uploaded JCAMP-DX file into the peak list', async () => {
     await analyst.goto(`${baseUrl()}/identify`);
     await analyst.waitForSelector('#peak-list');
-    await hydrated(analyst);
+    await islandsHydrated(analyst);
     await analyst.getByRole('tab', { name: 'JCAMP-DX file' }).click();
     await analyst.setInputFiles('#jcamp-file', path.resolve('tests/fixtures/jcamp/peak-table-xy.jdx'));
     await analyst.waitForFunction(() => (document.querySelector('#peak-list') as HTMLTextAreaElement | null)?.value.includes('78'));
@@ -140,7 +136,7 @@ describe('Library', () => {
   it('finds a record from a misspelt name', async () => {
     await analyst.goto(`${baseUrl()}/library`);
     await analyst.waitForSelector('[data-testid=library-row]');
-    await hydrated(analyst);
+    await islandsHydrated(analyst);
     await analyst.fill('#lib-q', 'tolune');
     await analyst.waitForFunction(() => new URL(location.href).searchParams.get('q') === 'tolune');
     await analyst.waitForFunction(() => {
@@ -168,7 +164,7 @@ describe('Library', () => {
     for (const m of masses) expect(m).toBeLessThanOrEqual(150);
     expect([...masses].sort((a, b) => b - a)).toEqual(masses);
     // a change made on the page lands in the URL, and that URL restores it
-    await hydrated(analyst);
+    await islandsHydrated(analyst);
     await analyst.fill('#lib-massmin', '100');
     await analyst.waitForFunction(() => new URL(location.href).searchParams.get('massMin') === '100');
     const shared = analyst.url();

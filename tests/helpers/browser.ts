@@ -44,11 +44,22 @@ export async function screenshot(page: Page, name: string) {
   await page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: true });
 }
 
+/**
+ * Wait until every island on the page has hydrated (Astro drops the `ssr` attribute then).
+ * A click or a keystroke before that reaches only the server-rendered HTML: the click is
+ * lost, and hydration may empty fields already typed into. Islands here are client:load,
+ * client:idle or client:only, so this always ends.
+ */
+export async function islandsHydrated(page: Page, timeout = 20_000) {
+  await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0, undefined, { timeout });
+}
+
 /** Sign in through the API in this page's context (cookie lands in the browser). */
 export async function signInAs(page: Page, who: string, password = 'ionotheca-demo') {
   await page.goto(`${baseUrl()}/sign-in`);
   // Wait until React has hydrated the form, or typing may be lost.
-  await page.waitForSelector('astro-island:not([ssr]) [data-testid="sign-in-form"]', { timeout: 20000 });
+  await page.waitForSelector('[data-testid="sign-in-form"]', { timeout: 20000 });
+  await islandsHydrated(page);
   await page.fill('#email', `${who}@demo.ionotheca.test`);
   await page.fill('#password', password);
   await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 20000 }), page.click('button[type=submit]')]);
