@@ -196,7 +196,7 @@ describe('curation in the browser', () => {
     const up = await page.request.post(`${baseUrl()}/api/imports`, { headers: { origin: baseUrl() }, multipart: { files: { name: 'edit-me.jdx', mimeType: 'text/plain', buffer: Buffer.from(text) } } });
     const id = (await up.json()).files[0].spectra[0].id as number;
     await page.goto(`${baseUrl()}/library/${id}`);
-    // the editor's island is client:idle: a click before it hydrates is lost
+    // a click before the editor's island hydrates is lost
     await islandsHydrated(page);
     await page.locator('[data-testid=record-edit] button').first().click();
     const form = page.locator('[data-testid=record-edit-form]');
