@@ -10,6 +10,8 @@ export function spectralEntropy(probabilities: ArrayLike<number>): number {
   return s;
 }
 
+let scratch = new Float64Array(256);
+
 /**
  * The entropy preprocessing of Li et al. 2021 (Nat. Methods 18:1524): scale
  * intensities to sum 1; if the spectrum's entropy S is below 3, raise each
@@ -24,9 +26,16 @@ export function entropyWeightsInto(intensities: ArrayLike<number>, out: { [i: nu
     for (let i = 0; i < n; i++) out[i] = 0;
     return;
   }
-  const p = new Float64Array(n);
-  for (let i = 0; i < n; i++) p[i] = intensities[i] / sum;
-  const s = spectralEntropy(p);
+  if (scratch.length < n) scratch = new Float64Array(Math.max(n, 2 * scratch.length));
+  // The first n entries of a reused buffer (no allocation per spectrum on the search path).
+  const p = scratch;
+  let s = 0;
+  for (let i = 0; i < n; i++) {
+    const v = intensities[i] / sum;
+    p[i] = v;
+    // spectralEntropy, over the first n entries
+    if (v > 0) s -= v * Math.log(v);
+  }
   if (s < 3) {
     const w = 0.25 + 0.25 * s;
     let sumW = 0;

@@ -1,4 +1,4 @@
-import { existsSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, statSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
@@ -46,9 +46,9 @@ export function locateSearchWorker(): WorkerLocation | null {
 
 function newestSourceMtime(dir: string): number {
   let newest = 0;
-  for (const name of ['worker.ts', 'runSearchTask.ts', 'searchSegment.ts', 'scorePrepared.ts', 'prepare.ts', 'segment.ts']) {
-    const f = path.join(dir, name);
-    if (existsSync(f)) newest = Math.max(newest, statSync(f).mtimeMs);
+  // Every module of the search folder: the worker imports most of them.
+  for (const name of readdirSync(dir)) {
+    if (name.endsWith('.ts') || name.endsWith('.mjs')) newest = Math.max(newest, statSync(path.join(dir, name)).mtimeMs);
   }
   return newest;
 }

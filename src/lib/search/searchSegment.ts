@@ -58,6 +58,8 @@ export interface KernelResult {
 interface Scratch {
   /** Cosine, per doc d: [2d] 0 not seen, > 0 partial dot, -1 scored exactly; [2d+1] sum of the read weights' squares. */
   acc: Float32Array;
+  /** Cosine, per doc: 1 while seen and not yet scored exactly, else 0 (a multiplier, so updates need no branch). */
+  seen: Uint8Array;
   candD: Int32Array;
   candV: Float64Array;
   candS: Int32Array;
@@ -83,7 +85,9 @@ function scratchFor(seg: Segment): Scratch {
     if (scratchCache.size >= 2) scratchCache.delete(scratchCache.keys().next().value as number);
     s = {
       acc: new Float32Array(seg.n * 2),
-      candD: new Int32Array(seg.n),
+      seen: new Uint8Array(seg.n),
+      // (+1: the branch-free list writes go one past the last kept entry.)
+      candD: new Int32Array(seg.n + 1),
       candV: new Float64Array(seg.n),
       candS: new Int32Array(seg.n),
       bucket: new Int32Array(257),
@@ -370,7 +374,11 @@ interface Terms {
  *
  * Per doc the state is two float32 (8 bytes, so a million docs take 8 MB):
  * the partial dot (0 not seen, -1 scored exactly) and the sum of squares of
- * the doc's weights read so far, which tightens its bound. The float32
+ * the doc's weights read so far, which tightens its bound; and a byte, 1
+ * while the doc is seen and not scored, by which the updates after
+ * admission multiply instead of testing (a third of the postings or so are
+ * of seen docs, at random, and the mispredicted tests cost more than the
+ * updates: 7.4 against 4.1 ns a posting measured here). The float32
  * rounding (at most 80 roundings of values <= 1, < 5e-6) is inside CEPS.
  */
 function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: Scratch, heap: TopK, terms: Terms): { postings: number; evaluated: number } {
@@ -379,6 +387,7 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   const { allow, penalty } = p;
   const { pDoc, pW, binMaxW, docStart, fBin, fW, docNorm } = seg;
   const acc = sc.acc;
+  const seen = sc.seen;
   const touched = sc.touched;
   let nTouched = 0;
   let postings = 0;
@@ -411,6 +420,7 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   const qNorm = q.norm;
   const scoreDoc = (d: number) => {
     acc[d << 1] = -1;
+    seen[d] = 0;
     evaluated++;
     let dot = 0;
     for (let j = docStart[d], e = docStart[d + 1]; j < e; j++) dot += qDense[fBin[j]] * fW[j];
@@ -480,6 +490,7 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
         if (a <= cut && na > cut) hot[nHot++] = d;
       } else if (a === 0 && allow[d] !== 0) {
         touched[nTouched++] = d;
+        seen[d] = 1;
         const na = Math.max(x * w, 1e-30);
         acc[o] = na;
         acc[o + 1] = w * w;
@@ -502,16 +513,12 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   hist.fill(0);
   // (An estimate only, so one seen doc in four is counted, four times.)
   if (pos < T) {
-    if (sweep()) {
-      for (let d = lo; d < hi; d += 4) {
-        const a = acc[d << 1];
-        if (a > 0) hist[Math.min(H, Math.floor(a * H))] += 4;
-      }
-    } else
-      for (let t = 0; t < nTouched; t += 4) {
-        const a = acc[touched[t] << 1];
-        if (a > 0) hist[Math.min(H, Math.floor(a * H))] += 4;
-      }
+    // (From the touched list: every entry is a seen doc, so the test is
+    // nearly always true, unlike one over all docs.)
+    for (let t = 0; t < nTouched; t += 4) {
+      const a = acc[touched[t] << 1];
+      if (a > 0) hist[Math.min(H, Math.floor(a * H))] += 4;
+    }
     for (let i = H - 1; i >= 0; i--) hist[i] += hist[i + 1];
   }
   const estimate = (rest: number) => hist[Math.min(H, Math.max(0, Math.floor((theta() - rest) * H)))];
@@ -521,14 +528,15 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
     const x = tQ[t];
     const end = tTo[t];
     postings += end - tFrom[t];
+    // No branch: a third of the docs or so are seen, at random, and a
+    // mispredicted test costs more than the update (unseen and scored docs
+    // have seen = 0 and get 0 added).
     for (let j = tFrom[t]; j < end; j++) {
-      const o = pDoc[j] << 1;
-      const a = acc[o];
-      if (a > 0) {
-        const w = pW[j];
-        acc[o] = a + x * w;
-        acc[o + 1] += w * w;
-      }
+      const d = pDoc[j];
+      const o = d << 1;
+      const w = pW[j] * seen[d];
+      acc[o] += x * w;
+      acc[o + 1] += w * w;
     }
     pos++;
     pending = pos < T ? estimate(R[pos]) : 0;
@@ -546,12 +554,23 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   const candV = sc.candV;
   let nCand = 0;
   let maxV = -Infinity;
-  const whole = sweep();
-  for (let t = whole ? lo : 0, tEnd = whole ? hi : nTouched; t < tEnd; t++) {
-    const d = whole ? t : touched[t];
+  // Cheap test first, without a branch: the bound is at most a + rest. The
+  // docs that pass are listed in candD, then the full bound is taken.
+  let nPass = 0;
+  if (sweep()) {
+    for (let d = lo; d < hi; d++) {
+      candD[nPass] = d;
+      nPass += seen[d] & +(acc[d << 1] + rest >= th0);
+    }
+  } else
+    for (let t = 0; t < nTouched; t++) {
+      const d = touched[t];
+      candD[nPass] = d;
+      nPass += seen[d] & +(acc[d << 1] + rest >= th0);
+    }
+  for (let i = 0; i < nPass; i++) {
+    const d = candD[i];
     const a = acc[d << 1];
-    // Cheap test first: the bound is at most a + rest.
-    if (a <= 0 || a + rest < th0) continue;
     const nd = docNorm[d];
     const v = a + Math.min(rest, qRest * Math.sqrt(Math.max(0, nd * nd - acc[(d << 1) + 1]) + 1e-5)) - (allow[d] === 2 ? penalty : 0);
     if (v >= th0) {
@@ -592,12 +611,16 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
 
   // Clear the state for the next search.
   for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < seg.nBins) qDense[q.bins[i]] = 0;
-  if (sweep()) acc.fill(0, lo << 1, hi << 1);
-  else
+  if (sweep()) {
+    acc.fill(0, lo << 1, hi << 1);
+    seen.fill(0, lo, hi);
+  } else
     for (let t = 0; t < nTouched; t++) {
-      const o = touched[t] << 1;
+      const d = touched[t];
+      const o = d << 1;
       acc[o] = 0;
       acc[o + 1] = 0;
+      seen[d] = 0;
     }
   return { postings, evaluated };
 }
