@@ -1,9 +1,9 @@
 import type { Peak } from './types';
 
-/** Shannon entropy (natural log) of intensities that sum to 1. */
-export function spectralEntropy(probabilities: ArrayLike<number>): number {
+/** Shannon entropy (natural log) of intensities that sum to 1 (the first `n` of them). */
+export function spectralEntropy(probabilities: ArrayLike<number>, n = probabilities.length): number {
   let s = 0;
-  for (let i = 0; i < probabilities.length; i++) {
+  for (let i = 0; i < n; i++) {
     const p = probabilities[i];
     if (p > 0) s -= p * Math.log(p);
   }
@@ -29,13 +29,8 @@ export function entropyWeightsInto(intensities: ArrayLike<number>, out: { [i: nu
   if (scratch.length < n) scratch = new Float64Array(Math.max(n, 2 * scratch.length));
   // The first n entries of a reused buffer (no allocation per spectrum on the search path).
   const p = scratch;
-  let s = 0;
-  for (let i = 0; i < n; i++) {
-    const v = intensities[i] / sum;
-    p[i] = v;
-    // spectralEntropy, over the first n entries
-    if (v > 0) s -= v * Math.log(v);
-  }
+  for (let i = 0; i < n; i++) p[i] = intensities[i] / sum;
+  const s = spectralEntropy(p, n);
   if (s < 3) {
     const w = 0.25 + 0.25 * s;
     let sumW = 0;
