@@ -7,7 +7,7 @@
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import crypto from 'node:crypto';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, baseUrl, islandsHydrated, watchPage, screenshot } from '../helpers/browser';
+import { launchBrowser, baseUrl, islandsHydrated, signInAs, watchPage, screenshot } from '../helpers/browser';
 
 let browser: Browser;
 const contexts: BrowserContext[] = [];
@@ -24,13 +24,7 @@ async function pageAs(who: string): Promise<Page> {
   contexts.push(context);
   const page = await context.newPage();
   try {
-    // the shared signInAs may type before the form's island hydrates (hydration then empties
-    // the fields): open the page and wait for hydration first, then use it
-    await page.goto(`${baseUrl()}/sign-in`);
-    await islandsHydrated(page);
-    await page.fill('#email', `${who}@demo.ionotheca.test`);
-    await page.fill('#password', 'ionotheca-demo');
-    await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 20000 }), page.click('button[type=submit]')]);
+    await signInAs(page, who);
   } catch (e) {
     await screenshot(page, `curation-sign-in-${who}`);
     const alert = await page.locator('[role=alert]').allTextContents().catch(() => []);
