@@ -4,6 +4,8 @@ import { scoreMerged, SCORE_SLOT } from './scorePrepared';
 import type { Segment } from './segment';
 import { TopK } from './topK';
 import type { PeakWeights, ScoreName } from './types';
+import { cosineKernel, wasmScratch, type WasmScratch } from './wasmKernel';
+import { MAX_LIMIT } from './options';
 
 const LN4 = Math.log(4);
 /**
@@ -75,6 +77,8 @@ interface Scratch {
   gW: Float64Array;
   gE: Float64Array;
   fE: Float32Array;
+  /** The compiled kernel's state for this segment in this thread (null: use the JavaScript kernel). */
+  wasm: WasmScratch | null;
 }
 
 const scratchCache = new Map<number, Scratch>();
@@ -100,6 +104,7 @@ function scratchFor(seg: Segment): Scratch {
       gW: new Float64Array(seg.maxDocPeaks),
       gE: new Float64Array(seg.maxDocPeaks),
       fE: new Float32Array(seg.maxDocPeaks),
+      wasm: seg.memory && seg.n > 0 ? wasmScratch(seg.memory, seg.n, seg.nBins) : null,
     };
     scratchCache.set(seg.id, s);
   }
@@ -348,8 +353,9 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
     return done();
   }
 
-  // Cosine: MaxScore over float32 accumulators (see cosineMaxScore).
-  const c = cosineMaxScore(seg, q, p, sc, heap, { tBin, tQ, tFrom, tTo });
+  // Cosine: MaxScore over float32 accumulators (see cosineMaxScore), compiled where it can be.
+  const terms = { tBin, tQ, tFrom, tTo };
+  const c = sc.wasm !== null && cosineKernel() === 'wasm' && p.k <= MAX_LIMIT ? cosineWasm(seg, q, p, sc.wasm, heap, terms) : cosineMaxScore(seg, q, p, sc, heap, terms);
   postings += c.postings;
   evaluated += c.evaluated;
   return done();
@@ -360,6 +366,65 @@ interface Terms {
   tQ: number[];
   tFrom: number[];
   tTo: number[];
+}
+
+/**
+ * The order the cosine kernels take the query's bins in: heaviest bound
+ * (query weight x the bin's largest stored weight) first, ties by bin. Fills
+ * R[i] (what a doc not seen in the first i bins can still score: the smaller
+ * of the remaining bounds' sum and the remaining query weights' norm) and
+ * Q[i] (that norm); R[T] = Q[T] = 0.
+ */
+function termOrder(seg: Segment, terms: Terms, R: Float64Array, Q: Float64Array): number[] {
+  const { tBin, tQ } = terms;
+  const T = tBin.length;
+  const tU = tQ.map((x, t) => x * seg.binMaxW[tBin[t]]);
+  const order = Array.from({ length: T }, (_, i) => i).sort((a, b) => tU[b] - tU[a] || tBin[a] - tBin[b]);
+  let s1 = 0;
+  let s2 = 0;
+  R[T] = 0;
+  Q[T] = 0;
+  for (let i = T - 1; i >= 0; i--) {
+    const t = order[i];
+    s1 += tU[t];
+    s2 += tQ[t] * tQ[t];
+    Q[i] = Math.sqrt(s2);
+    R[i] = Math.min(s1, Q[i]);
+  }
+  return order;
+}
+
+/**
+ * cosineMaxScore, compiled (wasm/cosine.ts is its line-by-line port): the
+ * query's terms in order and its dense weights go into this thread's scratch
+ * in the segment's memory, the kernel runs, and its heap becomes `heap`.
+ */
+function cosineWasm(seg: Segment, q: PreparedSpectrum, p: KernelParams, w: WasmScratch, heap: TopK, terms: Terms): { postings: number; evaluated: number } {
+  const T = terms.tBin.length;
+  const order = termOrder(seg, terms, w.R, w.Q);
+  for (let i = 0; i < T; i++) {
+    const t = order[i];
+    w.oQ[i] = terms.tQ[t];
+    w.oFrom[i] = terms.tFrom[t];
+    w.oTo[i] = terms.tTo[t];
+  }
+  const qDense = w.qDense;
+  for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < seg.nBins) qDense[q.bins[i]] = q.w[i];
+  const lo = Math.max(0, p.lo);
+  const hi = Math.min(seg.n, p.hi);
+  let allowAt = seg.live.byteOffset;
+  if (p.allow !== seg.live) {
+    // A filter mask: copy the searched range into the scratch's own.
+    w.allow.set(p.allow.subarray(lo, hi), lo);
+    allowAt = w.allow.byteOffset;
+  }
+  w.cosine(w.header, seg.docStart.byteOffset, seg.fBin.byteOffset, seg.fBin instanceof Int32Array ? 1 : 0, seg.fW.byteOffset, seg.docNorm.byteOffset, seg.pDoc.byteOffset, seg.pW.byteOffset, allowAt, lo, hi, p.k, T, p.noPruning ? 1 : 0, p.penalty, q.norm);
+  for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < seg.nBins) qDense[q.bins[i]] = 0;
+  const size = w.out[2];
+  heap.size = size;
+  heap.score.set(w.heapS.subarray(0, size));
+  heap.doc.set(w.heapD.subarray(0, size));
+  return { postings: w.out[0], evaluated: w.out[1] };
 }
 
 /**
@@ -382,10 +447,10 @@ interface Terms {
  * rounding (at most 80 roundings of values <= 1, < 5e-6) is inside CEPS.
  */
 function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: Scratch, heap: TopK, terms: Terms): { postings: number; evaluated: number } {
-  const { tBin, tQ, tFrom, tTo } = terms;
-  const T = tBin.length;
+  const { tQ, tFrom, tTo } = terms;
+  const T = terms.tBin.length;
   const { allow, penalty } = p;
-  const { pDoc, pW, binMaxW, docStart, fBin, fW, docNorm } = seg;
+  const { pDoc, pW, docStart, fBin, fW, docNorm } = seg;
   const acc = sc.acc;
   const seen = sc.seen;
   const touched = sc.touched;
@@ -395,21 +460,9 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   const lo = Math.max(0, p.lo);
   const hi = Math.min(seg.n, p.hi);
 
-  const tU = tQ.map((x, t) => x * binMaxW[tBin[t]]);
-  const order = Array.from({ length: T }, (_, i) => i).sort((a, b) => tU[b] - tU[a] || tBin[a] - tBin[b]);
   const R = new Float64Array(T + 1);
   const Q = new Float64Array(T + 1);
-  {
-    let s1 = 0;
-    let s2 = 0;
-    for (let i = T - 1; i >= 0; i--) {
-      const t = order[i];
-      s1 += tU[t];
-      s2 += tQ[t] * tQ[t];
-      Q[i] = Math.sqrt(s2);
-      R[i] = Math.min(s1, Q[i]);
-    }
-  }
+  const order = termOrder(seg, terms, R, Q);
   const theta = () => (p.noPruning ? -Infinity : heap.threshold() - CEPS);
   // The exact cosine of a doc through a dense copy of the query's weights: the
   // shared peaks' products added in m/z order, as scoreMerged adds them
@@ -585,7 +638,9 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
     const width = (maxV - floor) / NB || 1;
     const count = sc.bucket;
     count.fill(0);
-    for (let i = 0; i < nCand; i++) count[NB - 1 - Math.min(NB - 1, Math.floor((candV[i] - floor) / width))]++;
+    // (Clamped at both ends: with no k-th score yet a penalized bound can fall below the floor.)
+    const bucketOf = (v: number) => Math.min(NB - 1, Math.max(0, Math.floor((v - floor) / width)));
+    for (let i = 0; i < nCand; i++) count[NB - 1 - bucketOf(candV[i])]++;
     // Counting sort, best bucket first.
     let sum = 0;
     for (let b = 0; b <= NB; b++) {
@@ -594,14 +649,14 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
       sum += c;
     }
     const sorted = sc.candS;
-    for (let i = 0; i < nCand; i++) sorted[count[NB - 1 - Math.min(NB - 1, Math.floor((candV[i] - floor) / width))]++] = i;
+    for (let i = 0; i < nCand; i++) sorted[count[NB - 1 - bucketOf(candV[i])]++] = i;
     for (let s = 0; s < nCand; s++) {
       const i = sorted[s];
       const v = candV[i];
       const th = theta();
       // Buckets run best first: once a bucket's top is below the k-th score, so are all later ones.
       if (v < th) {
-        const bucketTop = floor + (Math.floor((v - floor) / width) + 1) * width;
+        const bucketTop = floor + (bucketOf(v) + 1) * width;
         if (bucketTop < th) break;
         continue;
       }

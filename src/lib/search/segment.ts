@@ -1,4 +1,5 @@
 import { stageInto } from './prepare';
+import { Arena } from './wasmKernel';
 import type { PeakWeights } from './types';
 
 /**
@@ -52,11 +53,17 @@ export interface Segment {
   binMaxE: Float32Array;
   /** 1 while a doc is current, 0 once removed or replaced (shared, mutable). */
   live: Uint8Array;
+  /**
+   * The shared WebAssembly memory every array above lives in (see
+   * wasmKernel.ts), so the compiled cosine kernel can read them; null when
+   * they are plain SharedArrayBuffers (no WebAssembly, or too large).
+   */
+  memory: WebAssembly.Memory | null;
 }
 
 let nextSegmentId = 1;
 
-function shared<T>(Ctor: { new (buffer: SharedArrayBuffer, byteOffset?: number, length?: number): T; BYTES_PER_ELEMENT: number }, length: number): T {
+function sharedArray<T>(Ctor: { new (buffer: SharedArrayBuffer, byteOffset: number, length: number): T; BYTES_PER_ELEMENT: number }, length: number): T {
   return new Ctor(new SharedArrayBuffer(Math.max(1, length) * Ctor.BYTES_PER_ELEMENT), 0, length);
 }
 
@@ -86,9 +93,18 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
   }
   for (let j = 0; j < offsets[count]; j++) if (bins[j] > maxBin) maxBin = bins[j];
   const nBins = maxBin + 1;
+  const wideBins = nBins > 65536;
+
+  // Every array in one shared WebAssembly memory when possible (8-byte aligned each), else one SharedArrayBuffer each.
+  const al = (bytes: number) => (Math.max(1, bytes) + 7) & ~7;
+  const bytes =
+    al(4 * (count + 1)) + al((wideBins ? 4 : 2) * nPeaks) + 5 * al(4 * nPeaks) + 3 * al(8 * count) + al(count) + al(4 * (nBins + 1)) + 2 * al(4 * nBins);
+  const arena = count > 0 ? Arena.create(bytes, count, nBins) : null;
+  const shared = <T>(Ctor: { new (buffer: ArrayBufferLike, byteOffset: number, length: number): T; BYTES_PER_ELEMENT: number }, length: number): T =>
+    arena ? arena.take(Ctor, length) : sharedArray(Ctor, length);
 
   const docStart = shared(Uint32Array, count + 1);
-  const fBin = nBins <= 65536 ? shared(Uint16Array, nPeaks) : shared(Int32Array, nPeaks);
+  const fBin = wideBins ? shared(Int32Array, nPeaks) : shared(Uint16Array, nPeaks);
   const fW = shared(Float32Array, nPeaks);
   const fE = new Float32Array(nPeaks); // only to fill the postings; the forward side recomputes it from fRel
   const fRel = shared(Float32Array, nPeaks);
@@ -171,6 +187,7 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
     binMaxW,
     binMaxE,
     live,
+    memory: arena ? arena.memory : null,
   };
 }
 

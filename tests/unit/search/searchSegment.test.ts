@@ -1,15 +1,20 @@
-import { describe, expect, it } from 'vitest';
+import { execFileSync } from 'node:child_process';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SearchIndex } from '../../../src/lib/search/SearchIndex';
 import { resolveSearchOptions } from '../../../src/lib/search/options';
 import { prepareQuery } from '../../../src/lib/search/prepare';
 import { bruteForceSegment, searchSegment, type KernelParams } from '../../../src/lib/search/searchSegment';
 import { SCORE_NAMES } from '../../../src/lib/search/types';
+import { setCosineKernel, type CosineKernel } from '../../../src/lib/search/wasmKernel';
 import { noisyQuery, randomLibrary, rng } from './helpers';
 import { docPeaks, noisyReplicate, syntheticColumns } from '../../../bench/synthetic';
 
 const asKeys = (r: { docs: Int32Array; rank: Float64Array }) => Array.from(r.docs, (d, i) => `${d}:${r.rank[i]}`);
 
-describe('searchSegment', () => {
+describe.each(['wasm', 'js'] as CosineKernel[])('searchSegment (%s cosine kernel)', (kernel) => {
+  beforeAll(() => setCosineKernel(kernel));
+  afterAll(() => setCosineKernel('wasm'));
+
   it('pruning never changes the top-k: pruned = unpruned = brute force (seeded libraries and queries)', () => {
     for (let seed = 1; seed <= 5; seed++) {
       const entries = randomLibrary(seed + 100, 800).map((e) => ({ ...e, status: 'released' as const }));
@@ -96,4 +101,72 @@ describe('searchSegment', () => {
     }
     expect(sweeps).toBeGreaterThan(0);
   });
+});
+
+/** A skewed EI-like library (the benchmark's generator) with some exact duplicates, so ties must fall back to doc order. */
+function skewedLibrary(count: number, seed: number) {
+  const cols = syntheticColumns(count, seed);
+  for (let d = 0; d < count; d += 89) {
+    const src = (d * 7) % count;
+    const n = Math.min(cols.offsets[d + 1] - cols.offsets[d], cols.offsets[src + 1] - cols.offsets[src]);
+    for (let i = 0; i < n; i++) {
+      cols.bins[cols.offsets[d] + i] = cols.bins[cols.offsets[src] + i];
+      cols.rel[cols.offsets[d] + i] = cols.rel[cols.offsets[src] + i];
+    }
+    for (let i = n; i < cols.offsets[d + 1] - cols.offsets[d]; i++) {
+      cols.bins[cols.offsets[d] + i] = 700 + i;
+      cols.rel[cols.offsets[d] + i] = 1e-3;
+    }
+  }
+  return cols;
+}
+
+describe('the compiled cosine kernel', () => {
+  afterAll(() => setCosineKernel('wasm'));
+
+  it('keeps the segment in a shared WebAssembly memory', () => {
+    const seg = SearchIndex.fromColumns(syntheticColumns(50, 1)).segment;
+    expect(seg.memory).not.toBeNull();
+    expect(seg.pDoc.buffer).toBe(seg.fW.buffer);
+    expect(seg.pDoc.buffer).toBeInstanceOf(SharedArrayBuffer);
+  });
+
+  it('returns what the JavaScript kernel returns: the same hits to the bit, postings read and docs rescored', () => {
+    const cols = skewedLibrary(8000, 9090);
+    const seg = SearchIndex.fromColumns(cols).segment;
+    const r = rng(31);
+    const level = { noise: 0.2, dropBelow: 0.02, dropP: 0.3, background: 3 };
+    for (let qi = 0; qi < 60; qi++) {
+      const peaks = noisyReplicate(docPeaks(cols, Math.floor(r() * cols.count)), r, level);
+      const k = [1, 5, 50, 100, 500][qi % 5];
+      const q = prepareQuery(peaks, resolveSearchOptions({ rankBy: 'cosine', limit: k }));
+      let allow = seg.live;
+      if (qi % 3 !== 0) {
+        allow = new Uint8Array(seg.n);
+        for (let d = 0; d < seg.n; d++) allow[d] = [0, 1, 1, 2][Math.floor(r() * 4)];
+      }
+      const params: KernelParams = {
+        k,
+        rankBy: 'cosine',
+        allow,
+        penalty: qi % 3 === 0 ? 0 : 0.05,
+        lo: qi % 5 === 0 ? 1500 : 0,
+        hi: qi % 7 === 0 ? 6000 : seg.n,
+        generic: null,
+        noPruning: qi % 11 === 0,
+      };
+      setCosineKernel('js');
+      const js = searchSegment(seg, q, params);
+      setCosineKernel('wasm');
+      const wasm = searchSegment(seg, q, params);
+      expect(Array.from(wasm.docs)).toEqual(Array.from(js.docs));
+      expect(Array.from(wasm.rank)).toEqual(Array.from(js.rank));
+      expect(Array.from(wasm.scores)).toEqual(Array.from(js.scores));
+      expect([wasm.postings, wasm.evaluated]).toEqual([js.postings, js.evaluated]);
+    }
+  });
+
+  it('is what wasm/cosine.ts compiles to (scripts/build-wasm.mjs --check)', () => {
+    expect(() => execFileSync(process.execPath, ['scripts/build-wasm.mjs', '--check'], { stdio: 'pipe' })).not.toThrow();
+  }, 60_000);
 });

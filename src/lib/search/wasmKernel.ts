@@ -1,0 +1,156 @@
+// The compiled cosine kernel (wasm/cosine.ts) and the memory it works in.
+//
+// A segment's arrays are carved from one shared WebAssembly.Memory (its
+// buffer is a SharedArrayBuffer, so workers still share them without copies),
+// and each thread that searches a segment grows that memory once for its own
+// scratch. Where WebAssembly or the memory is not available (or the segment
+// is too large for a 32-bit memory), segments use plain SharedArrayBuffers and
+// the JavaScript kernel, which returns the same hits.
+import { COSINE_WASM_BASE64 } from './cosineWasm.generated';
+import { MAX_LIMIT } from './options';
+
+const PAGE = 65536;
+/** WebAssembly's 32-bit memories: 4 GiB. */
+const MAX_PAGES = 65536;
+/** Scratch regions a segment's memory leaves room for (pool threads, the main thread, re-created scratch). */
+const SCRATCH_SLOTS = 10;
+
+let module: WebAssembly.Module | null | undefined;
+
+/** The compiled kernel module, or null where WebAssembly is not available. */
+export function cosineModule(): WebAssembly.Module | null {
+  if (module === undefined) {
+    try {
+      module = new WebAssembly.Module(Buffer.from(COSINE_WASM_BASE64, 'base64'));
+    } catch {
+      module = null;
+    }
+  }
+  return module;
+}
+
+export type CosineKernel = 'wasm' | 'js';
+let kernel: CosineKernel = process.env.SEARCH_KERNEL === 'js' ? 'js' : 'wasm';
+
+/** Which cosine kernel searches use: 'wasm' (default) or 'js' (`SEARCH_KERNEL=js`, or set here, for tests and the benchmark). */
+export function cosineKernel(): CosineKernel {
+  return kernel;
+}
+export function setCosineKernel(k: CosineKernel): void {
+  kernel = k;
+}
+
+/** Bytes of one thread's scratch for a segment of n docs and nBins bins. */
+function scratchBytes(n: number, nBins: number): number {
+  const k = MAX_LIMIT;
+  return 128 + 8 * 2 * n + n + 4 * n + 4 * (n + 1) + 8 * n + 4 * n + 8 * nBins + 4 * 257 + 8 * 1025 + 2 * (12 * k) + nBins * 16 + 2 * 8 * (nBins + 1) + 32 + n + 16 * 24;
+}
+
+/** Bump allocator over a segment's shared memory (8-byte aligned; the first page is left to the module). */
+export class Arena {
+  readonly memory: WebAssembly.Memory;
+  private at = PAGE;
+  private constructor(memory: WebAssembly.Memory) {
+    this.memory = memory;
+  }
+
+  /** An arena for `bytes` of arrays of a segment of n docs, or null (no WebAssembly, or too large). */
+  static create(bytes: number, n: number, nBins: number): Arena | null {
+    if (cosineModule() === null) return null;
+    const pages = Math.ceil((PAGE + bytes + 8 * 32) / PAGE);
+    const scratchPages = Math.ceil(scratchBytes(n, nBins) / PAGE);
+    if (pages + scratchPages > MAX_PAGES) return null;
+    try {
+      const memory = new WebAssembly.Memory({ initial: pages, maximum: Math.min(MAX_PAGES, pages + SCRATCH_SLOTS * scratchPages), shared: true });
+      return new Arena(memory);
+    } catch {
+      return null;
+    }
+  }
+
+  take<T>(Ctor: { new (buffer: ArrayBufferLike, byteOffset: number, length: number): T; BYTES_PER_ELEMENT: number }, length: number): T {
+    const at = this.at;
+    this.at = (at + Math.max(1, length) * Ctor.BYTES_PER_ELEMENT + 7) & ~7;
+    if (this.at > this.memory.buffer.byteLength) throw new RangeError('segment arena overflow');
+    return new Ctor(this.memory.buffer, at, length);
+  }
+}
+
+/** One thread's state for the compiled kernel on one segment. */
+export interface WasmScratch {
+  cosine: (...args: number[]) => void;
+  header: number;
+  qDense: Float64Array;
+  oQ: Float64Array;
+  oFrom: Uint32Array;
+  oTo: Uint32Array;
+  R: Float64Array;
+  Q: Float64Array;
+  heapS: Float64Array;
+  heapD: Int32Array;
+  out: Float64Array;
+  allow: Uint8Array;
+}
+
+/** Grow the segment's memory by this thread's scratch and instantiate the kernel on it; null if that fails. */
+export function wasmScratch(memory: WebAssembly.Memory, n: number, nBins: number): WasmScratch | null {
+  const mod = cosineModule();
+  if (mod === null) return null;
+  let base: number;
+  const bytes = scratchBytes(n, nBins);
+  try {
+    base = memory.grow(Math.ceil(bytes / PAGE)) * PAGE;
+  } catch {
+    return null;
+  }
+  const instance = new WebAssembly.Instance(mod, { env: { memory } });
+  const buffer = memory.buffer;
+  let at = base + 128;
+  const take = <T>(Ctor: { new (buffer: ArrayBufferLike, byteOffset: number, length: number): T; BYTES_PER_ELEMENT: number }, length: number): [T, number] => {
+    const p = at;
+    at = (at + Math.max(1, length) * Ctor.BYTES_PER_ELEMENT + 7) & ~7;
+    return [new Ctor(buffer, p, length), p];
+  };
+  const k = MAX_LIMIT;
+  const header = new Uint32Array(buffer, base, 32);
+  // The kernel reads these offsets in this order (wasm/cosine.ts, the start of cosine()).
+  const ptrs: number[] = [];
+  ptrs.push(take(Float32Array, 2 * n)[1]); // acc
+  ptrs.push(take(Uint8Array, n)[1]); // seen
+  ptrs.push(take(Int32Array, n)[1]); // touched
+  ptrs.push(take(Int32Array, n + 1)[1]); // candD
+  ptrs.push(take(Float64Array, n)[1]); // candV
+  ptrs.push(take(Int32Array, n)[1]); // candS
+  const [qDense, qDenseP] = take(Float64Array, nBins);
+  ptrs.push(qDenseP);
+  ptrs.push(take(Int32Array, 257)[1]); // bucket
+  ptrs.push(take(Float64Array, 1025)[1]); // hist
+  const [heapS, heapSP] = take(Float64Array, k);
+  const [heapD, heapDP] = take(Int32Array, k);
+  ptrs.push(heapSP, heapDP);
+  ptrs.push(take(Float64Array, k)[1], take(Int32Array, k)[1]); // pick heap
+  const [oQ, oQP] = take(Float64Array, nBins);
+  const [oFrom, oFromP] = take(Uint32Array, nBins);
+  const [oTo, oToP] = take(Uint32Array, nBins);
+  const [R, RP] = take(Float64Array, nBins + 1);
+  const [Q, QP] = take(Float64Array, nBins + 1);
+  const [out, outP] = take(Float64Array, 4);
+  ptrs.push(oQP, oFromP, oToP, RP, QP, outP);
+  const [allow] = take(Uint8Array, n);
+  if (at > base + Math.ceil(bytes / PAGE) * PAGE) throw new RangeError('wasm scratch overflow');
+  header.set(ptrs);
+  return {
+    cosine: instance.exports.cosine as (...args: number[]) => void,
+    header: base,
+    qDense,
+    oQ,
+    oFrom,
+    oTo,
+    R,
+    Q,
+    heapS,
+    heapD,
+    out,
+    allow,
+  };
+}
