@@ -117,11 +117,8 @@ function heapPush(sP: usize, dP: usize, size: i32, score: f64, doc: i32): i32 {
   return (heapSize < K ? -Infinity : load<f64>(heapS)) - CEPS;
 }
 
-function scoreDoc(d: i32): void {
-  const o = acc + (<usize>d << 3);
-  store<f32>(o, -1);
-  store<u8>(seen + <usize>d, 0);
-  evaluated++;
+/** The exact dot of the query (dense weights) with doc d's stored peaks, in m/z order. */
+@inline function dotOf(d: i32): f64 {
   let dot: f64 = 0;
   const e = load<u32>(gDocStart + ((<usize>d + 1) << 2));
   if (gWide) {
@@ -133,11 +130,88 @@ function scoreDoc(d: i32): void {
       dot += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>j << 1)) << 3)) * f32at(gFW + (<usize>j << 2));
     }
   }
+  return dot;
+}
+
+/** Doc d, whose exact dot is `dot`, is scored: it leaves the seen docs and enters the heap if it reaches it. */
+function settle(d: i32, dot: f64): void {
+  const o = acc + (<usize>d << 3);
+  store<f32>(o, -1);
+  store<u8>(seen + <usize>d, 0);
+  evaluated++;
   const dn = load<f64>(gDocNorm + (<usize>d << 3));
   if (dot > 0 && gQNorm > 0 && dn > 0) {
     const cos = min<f64>(1, dot / (gQNorm * dn));
     heapSize = heapPush(heapS, heapD, heapSize, load<u8>(gAllow + <usize>d) == 2 ? max<f64>(0, cos - gPenalty) : cos, d);
   }
+}
+
+// Docs to rescore are queued and scored four at a time, their loops
+// interleaved: each doc's peaks are a fresh read from memory, and four
+// streams at once keep four reads in flight instead of one.
+let g0: i32 = 0;
+let g1: i32 = 0;
+let g2: i32 = 0;
+let g3: i32 = 0;
+let gN: i32 = 0;
+
+function queue(d: i32): void {
+  if (gN == 0) g0 = d;
+  else if (gN == 1) g1 = d;
+  else if (gN == 2) g2 = d;
+  else g3 = d;
+  gN++;
+  if (gN == 4) flush();
+}
+
+function flush(): void {
+  if (gN == 4) {
+    const s0 = load<u32>(gDocStart + (<usize>g0 << 2));
+    const s1 = load<u32>(gDocStart + (<usize>g1 << 2));
+    const s2 = load<u32>(gDocStart + (<usize>g2 << 2));
+    const s3 = load<u32>(gDocStart + (<usize>g3 << 2));
+    const e0 = load<u32>(gDocStart + ((<usize>g0 + 1) << 2));
+    const e1 = load<u32>(gDocStart + ((<usize>g1 + 1) << 2));
+    const e2 = load<u32>(gDocStart + ((<usize>g2 + 1) << 2));
+    const e3 = load<u32>(gDocStart + ((<usize>g3 + 1) << 2));
+    const len = min<u32>(min<u32>(e0 - s0, e1 - s1), min<u32>(e2 - s2, e3 - s3));
+    let x0: f64 = 0;
+    let x1: f64 = 0;
+    let x2: f64 = 0;
+    let x3: f64 = 0;
+    if (gWide) {
+      for (let i: u32 = 0; i < len; i++) {
+        x0 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>(s0 + i) << 2)) << 3)) * f32at(gFW + (<usize>(s0 + i) << 2));
+        x1 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>(s1 + i) << 2)) << 3)) * f32at(gFW + (<usize>(s1 + i) << 2));
+        x2 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>(s2 + i) << 2)) << 3)) * f32at(gFW + (<usize>(s2 + i) << 2));
+        x3 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>(s3 + i) << 2)) << 3)) * f32at(gFW + (<usize>(s3 + i) << 2));
+      }
+      for (let j = s0 + len; j < e0; j++) x0 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>j << 2)) << 3)) * f32at(gFW + (<usize>j << 2));
+      for (let j = s1 + len; j < e1; j++) x1 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>j << 2)) << 3)) * f32at(gFW + (<usize>j << 2));
+      for (let j = s2 + len; j < e2; j++) x2 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>j << 2)) << 3)) * f32at(gFW + (<usize>j << 2));
+      for (let j = s3 + len; j < e3; j++) x3 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>j << 2)) << 3)) * f32at(gFW + (<usize>j << 2));
+    } else {
+      for (let i: u32 = 0; i < len; i++) {
+        x0 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>(s0 + i) << 1)) << 3)) * f32at(gFW + (<usize>(s0 + i) << 2));
+        x1 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>(s1 + i) << 1)) << 3)) * f32at(gFW + (<usize>(s1 + i) << 2));
+        x2 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>(s2 + i) << 1)) << 3)) * f32at(gFW + (<usize>(s2 + i) << 2));
+        x3 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>(s3 + i) << 1)) << 3)) * f32at(gFW + (<usize>(s3 + i) << 2));
+      }
+      for (let j = s0 + len; j < e0; j++) x0 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>j << 1)) << 3)) * f32at(gFW + (<usize>j << 2));
+      for (let j = s1 + len; j < e1; j++) x1 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>j << 1)) << 3)) * f32at(gFW + (<usize>j << 2));
+      for (let j = s2 + len; j < e2; j++) x2 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>j << 1)) << 3)) * f32at(gFW + (<usize>j << 2));
+      for (let j = s3 + len; j < e3; j++) x3 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>j << 1)) << 3)) * f32at(gFW + (<usize>j << 2));
+    }
+    settle(g0, x0);
+    settle(g1, x1);
+    settle(g2, x2);
+    settle(g3, x3);
+  } else {
+    if (gN > 0) settle(g0, dotOf(g0));
+    if (gN > 1) settle(g1, dotOf(g1));
+    if (gN > 2) settle(g2, dotOf(g2));
+  }
+  gN = 0;
 }
 
 @inline function partial(d: i32): f64 {
@@ -195,6 +269,7 @@ export function cosine(
   K = k;
   heapSize = 0;
   evaluated = 0;
+  gN = 0;
   noPrune = noPruning != 0;
   gPenalty = penalty;
   gQNorm = qNorm;
@@ -273,8 +348,9 @@ export function cosine(
     for (let i = 0; i < pickSize; i++) {
       const d = load<i32>(pickD + (<usize>i << 2));
       const a = partial(d);
-      if (a > 0 && a + rest0 >= theta()) scoreDoc(d);
+      if (a > 0 && a + rest0 >= theta()) queue(d);
     }
+    flush();
     if (!admitting) break;
   }
 
@@ -375,8 +451,9 @@ export function cosine(
         continue;
       }
       const d = load<i32>(candD + (<usize>i << 2));
-      if (partial(d) > 0) scoreDoc(d);
+      if (partial(d) > 0) queue(d);
     }
+    flush();
   }
 
   // Clear the per-doc state for the next search.

@@ -1,3 +1,4 @@
+import { entropyWeightAt } from './entropyWeights';
 import type { ScoreName } from './types';
 
 const LN4 = Math.log(4);
@@ -12,6 +13,12 @@ export const SCORE_SLOT: Record<ScoreName, number> = { cosine: 0, reverseCosine:
  * unit-norm weights). Writes [cosine, reverseCosine, composite, entropy] into
  * `out` at `at`. Every search path and the brute-force reference score with
  * this one function, so their results agree to the last bit.
+ *
+ * With `lRel` set, `lE` holds the library spectrum's relative intensities and
+ * lRel its entropyParams [sum, pow, sumW]: each shared peak's entropy weight
+ * is computed when it is met, rounded to float32 as a stored weight array
+ * would hold it (the same bits as entropyWeightsInto into a Float32Array,
+ * without weighting every peak).
  */
 export function scoreMerged(
   qBins: Int32Array,
@@ -28,6 +35,7 @@ export function scoreMerged(
   withEntropy: boolean,
   out: Float64Array,
   at = 0,
+  lRel: Float64Array | null = null,
 ): void {
   let i = 0;
   let j = start;
@@ -57,7 +65,7 @@ export function scoreMerged(
       nShared++;
       if (withEntropy) {
         const ea = qE[i];
-        const eb = lE[j];
+        const eb = lRel === null ? lE[j] : Math.fround(entropyWeightAt(lE[j], lRel[0], lRel[1], lRel[2]));
         if (ea > 0 && eb > 0) ent += (ea + eb) * Math.log(ea + eb) - ea * Math.log(ea) - eb * Math.log(eb);
       }
       i++;

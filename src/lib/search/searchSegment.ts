@@ -1,4 +1,3 @@
-import { entropyWeightsInto } from './entropyWeights';
 import { stageInto, type PreparedSpectrum } from './prepare';
 import { scoreMerged, SCORE_SLOT } from './scorePrepared';
 import type { Segment } from './segment';
@@ -76,7 +75,8 @@ interface Scratch {
   gBins: Int32Array;
   gW: Float64Array;
   gE: Float64Array;
-  fE: Float32Array;
+  /** A doc's entropyParams [sum, pow, sumW], passed to scoreMerged. */
+  eParams: Float64Array;
   /** The compiled kernel's state for this segment in this thread (null: use the JavaScript kernel). */
   wasm: WasmScratch | null;
 }
@@ -103,7 +103,7 @@ function scratchFor(seg: Segment): Scratch {
       gBins: new Int32Array(seg.maxDocPeaks),
       gW: new Float64Array(seg.maxDocPeaks),
       gE: new Float64Array(seg.maxDocPeaks),
-      fE: new Float32Array(seg.maxDocPeaks),
+      eParams: new Float64Array(3),
       wasm: seg.memory && seg.n > 0 ? wasmScratch(seg.memory, seg.n, seg.nBins) : null,
     };
     scratchCache.set(seg.id, s);
@@ -129,9 +129,12 @@ function evaluate(seg: Segment, q: PreparedSpectrum, d: number, generic: Generic
   const e = seg.docStart[d + 1];
   if (generic === null) {
     if (withEntropy) {
-      entropyWeightsInto(seg.fRel.subarray(s, e), sc.fE);
-      // sc.fE is indexed from 0, the forward arrays from s: pass views that line up.
-      scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin.subarray(s, e), seg.fW.subarray(s, e), sc.fE, 0, e - s, seg.docNorm[d], true, out, at);
+      // The entropy weights of the shared peaks only, from the relative intensities and the doc's parameters.
+      const ep = sc.eParams;
+      ep[0] = seg.eSum[d];
+      ep[1] = seg.ePow[d];
+      ep[2] = seg.eSumW[d];
+      scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fRel, s, e, seg.docNorm[d], true, out, at, ep);
     } else {
       // No entropy: the forward arrays in place (lE is not read).
       scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fW, s, e, seg.docNorm[d], false, out, at);
@@ -471,16 +474,62 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   const qDense = sc.qDense;
   for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < seg.nBins) qDense[q.bins[i]] = q.w[i];
   const qNorm = q.norm;
-  const scoreDoc = (d: number) => {
+  const dotOf = (d: number) => {
+    let dot = 0;
+    for (let j = docStart[d], e = docStart[d + 1]; j < e; j++) dot += qDense[fBin[j]] * fW[j];
+    return dot;
+  };
+  const settle = (d: number, dot: number) => {
     acc[d << 1] = -1;
     seen[d] = 0;
     evaluated++;
-    let dot = 0;
-    for (let j = docStart[d], e = docStart[d + 1]; j < e; j++) dot += qDense[fBin[j]] * fW[j];
     if (dot > 0 && qNorm > 0 && docNorm[d] > 0) {
       const cos = Math.min(1, dot / (qNorm * docNorm[d]));
       heap.push(allow[d] === 2 ? Math.max(0, cos - penalty) : cos, d);
     }
+  };
+  // Docs to rescore are queued and scored four at a time, their loops
+  // interleaved: each doc's peaks are a fresh read from memory, and four
+  // streams at once keep four reads in flight instead of one. (Each doc's
+  // products are still added in its own m/z order.)
+  const group = [0, 0, 0, 0];
+  let nGroup = 0;
+  const flush = () => {
+    if (nGroup === 4) {
+      const [g0, g1, g2, g3] = group;
+      const s0 = docStart[g0];
+      const s1 = docStart[g1];
+      const s2 = docStart[g2];
+      const s3 = docStart[g3];
+      const e0 = docStart[g0 + 1];
+      const e1 = docStart[g1 + 1];
+      const e2 = docStart[g2 + 1];
+      const e3 = docStart[g3 + 1];
+      const len = Math.min(e0 - s0, e1 - s1, e2 - s2, e3 - s3);
+      let x0 = 0;
+      let x1 = 0;
+      let x2 = 0;
+      let x3 = 0;
+      for (let i = 0; i < len; i++) {
+        x0 += qDense[fBin[s0 + i]] * fW[s0 + i];
+        x1 += qDense[fBin[s1 + i]] * fW[s1 + i];
+        x2 += qDense[fBin[s2 + i]] * fW[s2 + i];
+        x3 += qDense[fBin[s3 + i]] * fW[s3 + i];
+      }
+      for (let j = s0 + len; j < e0; j++) x0 += qDense[fBin[j]] * fW[j];
+      for (let j = s1 + len; j < e1; j++) x1 += qDense[fBin[j]] * fW[j];
+      for (let j = s2 + len; j < e2; j++) x2 += qDense[fBin[j]] * fW[j];
+      for (let j = s3 + len; j < e3; j++) x3 += qDense[fBin[j]] * fW[j];
+      settle(g0, x0);
+      settle(g1, x1);
+      settle(g2, x2);
+      settle(g3, x3);
+    } else for (let i = 0; i < nGroup; i++) settle(group[i], dotOf(group[i]));
+    nGroup = 0;
+  };
+  const queue = (d: number) => {
+    group[nGroup++] = d;
+    if (nGroup === 4) flush();
   };
   // Seen docs are visited through the touched list, or by a sequential sweep
   // of the state once most docs have been seen (cheaper than random reads).
@@ -519,8 +568,9 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
     for (let i = 0; i < pick.size; i++) {
       const d = pick.doc[i];
       const a = acc[d << 1];
-      if (a > 0 && a + rest >= theta()) scoreDoc(d);
+      if (a > 0 && a + rest >= theta()) queue(d);
     }
+    flush();
   };
 
   // Admit docs while an unseen one could still make the top k.
@@ -660,8 +710,9 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
         if (bucketTop < th) break;
         continue;
       }
-      if (acc[candD[i] << 1] > 0) scoreDoc(candD[i]);
+      if (acc[candD[i] << 1] > 0) queue(candD[i]);
     }
+    flush();
   }
 
   // Clear the state for the next search.

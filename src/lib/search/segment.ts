@@ -1,3 +1,4 @@
+import { entropyParams } from './entropyWeights';
 import { stageInto } from './prepare';
 import { Arena } from './wasmKernel';
 import type { PeakWeights } from './types';
@@ -41,6 +42,14 @@ export interface Segment {
   fRel: Float32Array;
   /** sqrt(sum fW^2) per doc as stored. */
   docNorm: Float64Array;
+  /**
+   * Per doc, its entropy weights' parameters (entropyParams of fRel: sum,
+   * exponent, reweighted sum), so a hit's entropy weights are computed for
+   * its shared peaks only, to the same bits as entropyWeightsInto.
+   */
+  eSum: Float64Array;
+  ePow: Float64Array;
+  eSumW: Float64Array;
   recordId: Float64Array;
   spectrumId: Float64Array;
   // Inverted index: bin -> docs (ascending) with their weight.
@@ -98,7 +107,7 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
   // Every array in one shared WebAssembly memory when possible (8-byte aligned each), else one SharedArrayBuffer each.
   const al = (bytes: number) => (Math.max(1, bytes) + 7) & ~7;
   const bytes =
-    al(4 * (count + 1)) + al((wideBins ? 4 : 2) * nPeaks) + 5 * al(4 * nPeaks) + 3 * al(8 * count) + al(count) + al(4 * (nBins + 1)) + 2 * al(4 * nBins);
+    al(4 * (count + 1)) + al((wideBins ? 4 : 2) * nPeaks) + 5 * al(4 * nPeaks) + 6 * al(8 * count) + al(count) + al(4 * (nBins + 1)) + 2 * al(4 * nBins);
   const arena = count > 0 ? Arena.create(bytes, count, nBins) : null;
   const shared = <T>(Ctor: { new (buffer: ArrayBufferLike, byteOffset: number, length: number): T; BYTES_PER_ELEMENT: number }, length: number): T =>
     arena ? arena.take(Ctor, length) : sharedArray(Ctor, length);
@@ -109,6 +118,9 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
   const fE = new Float32Array(nPeaks); // only to fill the postings; the forward side recomputes it from fRel
   const fRel = shared(Float32Array, nPeaks);
   const docNorm = shared(Float64Array, count);
+  const eSum = shared(Float64Array, count);
+  const ePow = shared(Float64Array, count);
+  const eSumW = shared(Float64Array, count);
   const recordId = shared(Float64Array, count);
   const spectrumId = shared(Float64Array, count);
   const live = shared(Uint8Array, count);
@@ -133,6 +145,10 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
     }
     at += n;
     docNorm[d] = norm;
+    const ep = entropyParams(fRel, docStart[d], at);
+    eSum[d] = ep.sum;
+    ePow[d] = ep.pow;
+    eSumW[d] = ep.sumW;
     recordId[d] = recordIds[src];
     spectrumId[d] = spectrumIds[src];
     live[d] = 1;
@@ -178,6 +194,9 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
     fW,
     fRel,
     docNorm,
+    eSum,
+    ePow,
+    eSumW,
     recordId,
     spectrumId,
     pStart,
@@ -193,7 +212,7 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
 
 /** Bytes held by a segment's typed arrays (forward storage, postings and per-doc columns). */
 export function segmentBytes(seg: Segment): number {
-  const arrays = [seg.docStart, seg.fBin, seg.fW, seg.fRel, seg.docNorm, seg.recordId, seg.spectrumId, seg.pStart, seg.pDoc, seg.pW, seg.pE, seg.binMaxW, seg.binMaxE, seg.live];
+  const arrays = [seg.docStart, seg.fBin, seg.fW, seg.fRel, seg.docNorm, seg.eSum, seg.ePow, seg.eSumW, seg.recordId, seg.spectrumId, seg.pStart, seg.pDoc, seg.pW, seg.pE, seg.binMaxW, seg.binMaxE, seg.live];
   let bytes = 0;
   for (const a of arrays) bytes += a.byteLength;
   return bytes;

@@ -5,6 +5,8 @@ import { resolveSearchOptions } from '../../../src/lib/search/options';
 import { prepareQuery } from '../../../src/lib/search/prepare';
 import { bruteForceSegment, searchSegment, type KernelParams } from '../../../src/lib/search/searchSegment';
 import { SCORE_NAMES } from '../../../src/lib/search/types';
+import { entropyWeightsInto } from '../../../src/lib/search/entropyWeights';
+import { scoreMerged } from '../../../src/lib/search/scorePrepared';
 import { setCosineKernel, type CosineKernel } from '../../../src/lib/search/wasmKernel';
 import { noisyQuery, randomLibrary, rng } from './helpers';
 import { docPeaks, noisyReplicate, syntheticColumns } from '../../../bench/synthetic';
@@ -169,4 +171,33 @@ describe('the compiled cosine kernel', () => {
   it('is what wasm/cosine.ts compiles to (scripts/build-wasm.mjs --check)', () => {
     expect(() => execFileSync(process.execPath, ['scripts/build-wasm.mjs', '--check'], { stdio: 'pipe' })).not.toThrow();
   }, 60_000);
+});
+
+describe('entropy weights of a stored spectrum from its parameters', () => {
+  it('score a hit to the same bits as weighting every peak first (entropyWeightsInto into float32)', () => {
+    const cols = syntheticColumns(3000, 515);
+    // Steepen every third spectrum's intensities so its entropy falls below 3 and the weights are reweighted.
+    for (let d = 0; d < cols.count; d += 3) for (let j = cols.offsets[d]; j < cols.offsets[d + 1]; j++) cols.rel[j] = cols.rel[j] ** 6;
+    const seg = SearchIndex.fromColumns(cols).segment;
+    const r = rng(8);
+    const level = { noise: 0.2, dropBelow: 0.02, dropP: 0.3, background: 3 };
+    const a = new Float64Array(4);
+    const b = new Float64Array(4);
+    let reweighted = 0;
+    for (let qi = 0; qi < 20; qi++) {
+      const q = prepareQuery(noisyReplicate(docPeaks(cols, Math.floor(r() * cols.count)), r, level), resolveSearchOptions({ rankBy: 'entropy' }));
+      for (let t = 0; t < 150; t++) {
+        const d = Math.floor(r() * seg.n);
+        const s = seg.docStart[d];
+        const e = seg.docStart[d + 1];
+        const fE = new Float32Array(e - s);
+        entropyWeightsInto(seg.fRel.subarray(s, e), fE);
+        scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin.subarray(s, e), seg.fW.subarray(s, e), fE, 0, e - s, seg.docNorm[d], true, a);
+        scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fRel, s, e, seg.docNorm[d], true, b, 0, Float64Array.of(seg.eSum[d], seg.ePow[d], seg.eSumW[d]));
+        expect(Array.from(b)).toEqual(Array.from(a));
+        if (seg.ePow[d] > 0) reweighted++;
+      }
+    }
+    expect(reweighted).toBeGreaterThan(0);
+  });
 });
