@@ -18,7 +18,8 @@ export const SCORE_SLOT: Record<ScoreName, number> = { cosine: 0, reverseCosine:
  * lRel its entropyParams [sum, pow, sumW]: each shared peak's entropy weight
  * is computed when it is met, rounded to float32 as a stored weight array
  * would hold it (the same bits as entropyWeightsInto into a Float32Array,
- * without weighting every peak).
+ * without weighting every peak). With `qIdx` (the query's index by bin, -1
+ * elsewhere, covering every library bin) shared peaks are found by lookup.
  */
 export function scoreMerged(
   qBins: Int32Array,
@@ -36,9 +37,9 @@ export function scoreMerged(
   out: Float64Array,
   at = 0,
   lRel: Float64Array | null = null,
+  qIdx: Int32Array | null = null,
 ): void {
   let i = 0;
-  let j = start;
   let dot = 0;
   let qShared = 0;
   let nShared = 0;
@@ -46,30 +47,36 @@ export function scoreMerged(
   let prevQ = 0;
   let prevL = 0;
   let ent = 0;
-  while (i < qN && j < end) {
-    const a = qBins[i];
+  // The library peaks in m/z order; each finds its query peak through qIdx
+  // (bin -> query index, -1 where the query has none: one test a peak) or
+  // by merging with the query's sorted bins. Either way the shared peaks
+  // come in the same order, so the sums are the same to the bit.
+  for (let j = start; j < end; j++) {
     const b = lBins[j];
-    if (a < b) i++;
-    else if (a > b) j++;
-    else {
-      const x = qW[i];
-      const y = lW[j];
-      dot += x * y;
-      qShared += x * x;
-      if (nShared > 0) {
-        const r = (y / prevL) * (prevQ / x);
-        ratioSum += r <= 1 ? r : 1 / r;
-      }
-      prevQ = x;
-      prevL = y;
-      nShared++;
-      if (withEntropy) {
-        const ea = qE[i];
-        const eb = lRel === null ? lE[j] : Math.fround(entropyWeightAt(lE[j], lRel[0], lRel[1], lRel[2]));
-        if (ea > 0 && eb > 0) ent += (ea + eb) * Math.log(ea + eb) - ea * Math.log(ea) - eb * Math.log(eb);
-      }
-      i++;
-      j++;
+    if (qIdx !== null) {
+      const k = qIdx[b];
+      if (k < 0) continue;
+      i = k;
+    } else {
+      while (i < qN && qBins[i] < b) i++;
+      if (i >= qN) break;
+      if (qBins[i] !== b) continue;
+    }
+    const x = qW[i];
+    const y = lW[j];
+    dot += x * y;
+    qShared += x * x;
+    if (nShared > 0) {
+      const r = (y / prevL) * (prevQ / x);
+      ratioSum += r <= 1 ? r : 1 / r;
+    }
+    prevQ = x;
+    prevL = y;
+    nShared++;
+    if (withEntropy) {
+      const ea = qE[i];
+      const eb = lRel === null ? lE[j] : Math.fround(entropyWeightAt(lE[j], lRel[0], lRel[1], lRel[2]));
+      if (ea > 0 && eb > 0) ent += (ea + eb) * Math.log(ea + eb) - ea * Math.log(ea) - eb * Math.log(eb);
     }
   }
   if (nShared === 0 || !(qNorm > 0) || !(lNorm > 0)) {

@@ -75,6 +75,8 @@ interface Scratch {
   gBins: Int32Array;
   gW: Float64Array;
   gE: Float64Array;
+  /** The query being scored, by bin: its peak's index, -1 elsewhere (set by setQuery, cleared by clearQuery). */
+  qIdx: Int32Array;
   /** A doc's entropyParams [sum, pow, sumW], passed to scoreMerged. */
   eParams: Float64Array;
   /** The compiled kernel's state for this segment in this thread (null: use the JavaScript kernel). */
@@ -103,12 +105,24 @@ function scratchFor(seg: Segment): Scratch {
       gBins: new Int32Array(seg.maxDocPeaks),
       gW: new Float64Array(seg.maxDocPeaks),
       gE: new Float64Array(seg.maxDocPeaks),
+      qIdx: new Int32Array(seg.nBins).fill(-1),
       eParams: new Float64Array(3),
       wasm: seg.memory && seg.n > 0 ? wasmScratch(seg.memory, seg.n, seg.nBins) : null,
     };
     scratchCache.set(seg.id, s);
   }
   return s;
+}
+
+/** Index the query's peaks by bin for scoreMerged (library bins are all < nBins). */
+function setQuery(sc: Scratch, q: PreparedSpectrum): void {
+  const qIdx = sc.qIdx;
+  for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < qIdx.length) qIdx[q.bins[i]] = i;
+}
+
+function clearQuery(sc: Scratch, q: PreparedSpectrum): void {
+  const qIdx = sc.qIdx;
+  for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < qIdx.length) qIdx[q.bins[i]] = -1;
 }
 
 /** First posting index in [from, to) whose doc is >= doc. */
@@ -134,14 +148,14 @@ function evaluate(seg: Segment, q: PreparedSpectrum, d: number, generic: Generic
       ep[0] = seg.eSum[d];
       ep[1] = seg.ePow[d];
       ep[2] = seg.eSumW[d];
-      scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fRel, s, e, seg.docNorm[d], true, out, at, ep);
+      scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fRel, s, e, seg.docNorm[d], true, out, at, ep, sc.qIdx);
     } else {
       // No entropy: the forward arrays in place (lE is not read).
-      scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fW, s, e, seg.docNorm[d], false, out, at);
+      scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fW, s, e, seg.docNorm[d], false, out, at, null, sc.qIdx);
     }
   } else {
     const g = stageInto(seg.fBin, seg.fRel, s, e, generic.tolerance, generic.weights, generic.noiseFloor, generic.lowMassCutoff, generic.excludeBins, sc.gBins, sc.gW, sc.gE);
-    scoreMerged(q.bins, q.w, q.e, q.n, q.norm, sc.gBins, sc.gW, sc.gE, 0, g.n, g.norm, withEntropy, out, at);
+    scoreMerged(q.bins, q.w, q.e, q.n, q.norm, sc.gBins, sc.gW, sc.gE, 0, g.n, g.norm, withEntropy, out, at, null, sc.qIdx);
   }
 }
 
@@ -190,6 +204,7 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
   const lo = Math.max(0, p.lo);
   const hi = Math.min(seg.n, p.hi);
   if (q.n === 0 || hi <= lo || seg.n === 0) return finish(seg, q, p, sc, heap, 0, 0);
+  setQuery(sc, q);
   const { allow, penalty, rankBy } = p;
   const slot = SCORE_SLOT[rankBy];
   const { pStart, pDoc, pW, pE } = seg;
@@ -245,6 +260,7 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
   const done = () => {
     const r = finish(seg, q, p, sc, heap, postings, evaluated);
     reset();
+    clearQuery(sc, q);
     return r;
   };
 
@@ -739,6 +755,7 @@ export function bruteForceSegment(seg: Segment, q: PreparedSpectrum, p: KernelPa
   const slot = SCORE_SLOT[p.rankBy];
   const hi = Math.min(seg.n, p.hi);
   let evaluated = 0;
+  setQuery(sc, q);
   for (let d = Math.max(0, p.lo); d < hi; d++) {
     if (p.allow[d] === 0) continue;
     evaluated++;
@@ -748,7 +765,9 @@ export function bruteForceSegment(seg: Segment, q: PreparedSpectrum, p: KernelPa
       heap.push(p.allow[d] === 2 ? Math.max(0, raw - p.penalty) : raw, d);
     }
   }
-  return finish(seg, q, p, sc, heap, 0, evaluated);
+  const r = finish(seg, q, p, sc, heap, 0, evaluated);
+  clearQuery(sc, q);
+  return r;
 }
 
 /** The memory-scan floor: one sequential pass over every stored peak's weight. */

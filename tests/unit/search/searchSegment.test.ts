@@ -174,7 +174,7 @@ describe('the compiled cosine kernel', () => {
 });
 
 describe('entropy weights of a stored spectrum from its parameters', () => {
-  it('score a hit to the same bits as weighting every peak first (entropyWeightsInto into float32)', () => {
+  it('score a hit to the same bits as weighting every peak first (entropyWeightsInto into float32), by merge or by lookup', () => {
     const cols = syntheticColumns(3000, 515);
     // Steepen every third spectrum's intensities so its entropy falls below 3 and the weights are reweighted.
     for (let d = 0; d < cols.count; d += 3) for (let j = cols.offsets[d]; j < cols.offsets[d + 1]; j++) cols.rel[j] = cols.rel[j] ** 6;
@@ -186,6 +186,8 @@ describe('entropy weights of a stored spectrum from its parameters', () => {
     let reweighted = 0;
     for (let qi = 0; qi < 20; qi++) {
       const q = prepareQuery(noisyReplicate(docPeaks(cols, Math.floor(r() * cols.count)), r, level), resolveSearchOptions({ rankBy: 'entropy' }));
+      const qIdx = new Int32Array(seg.nBins).fill(-1);
+      for (let i = 0; i < q.n; i++) if (q.bins[i] < seg.nBins) qIdx[q.bins[i]] = i;
       for (let t = 0; t < 150; t++) {
         const d = Math.floor(r() * seg.n);
         const s = seg.docStart[d];
@@ -194,6 +196,9 @@ describe('entropy weights of a stored spectrum from its parameters', () => {
         entropyWeightsInto(seg.fRel.subarray(s, e), fE);
         scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin.subarray(s, e), seg.fW.subarray(s, e), fE, 0, e - s, seg.docNorm[d], true, a);
         scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fRel, s, e, seg.docNorm[d], true, b, 0, Float64Array.of(seg.eSum[d], seg.ePow[d], seg.eSumW[d]));
+        expect(Array.from(b)).toEqual(Array.from(a));
+        // And with the shared peaks found through the query's index by bin instead of a merge.
+        scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fRel, s, e, seg.docNorm[d], true, b, 0, Float64Array.of(seg.eSum[d], seg.ePow[d], seg.eSumW[d]), qIdx);
         expect(Array.from(b)).toEqual(Array.from(a));
         if (seg.ePow[d] > 0) reweighted++;
       }
