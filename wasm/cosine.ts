@@ -117,20 +117,17 @@ function heapPush(sP: usize, dP: usize, size: i32, score: f64, doc: i32): i32 {
   return (heapSize < K ? -Infinity : load<f64>(heapS)) - CEPS;
 }
 
-/** The exact dot of the query (dense weights) with doc d's stored peaks, in m/z order. */
-@inline function dotOf(d: i32): f64 {
+/** The exact dot of the query (dense weights) with doc d's stored peaks, in m/z order (B: the bins' type). */
+@inline function dotOf<B>(d: i32): f64 {
   let dot: f64 = 0;
   const e = load<u32>(gDocStart + ((<usize>d + 1) << 2));
-  if (gWide) {
-    for (let j = load<u32>(gDocStart + (<usize>d << 2)); j < e; j++) {
-      dot += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>j << 2)) << 3)) * f32at(gFW + (<usize>j << 2));
-    }
-  } else {
-    for (let j = load<u32>(gDocStart + (<usize>d << 2)); j < e; j++) {
-      dot += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>j << 1)) << 3)) * f32at(gFW + (<usize>j << 2));
-    }
-  }
+  for (let j = load<u32>(gDocStart + (<usize>d << 2)); j < e; j++) dot += termAt<B>(j);
   return dot;
+}
+
+/** One peak's product: the query's dense weight at the bin of stored peak j, times its weight. */
+@inline function termAt<B>(j: u32): f64 {
+  return load<f64>(qDense + (<usize>load<B>(gFBin + (<usize>j << alignof<B>())) << 3)) * f32at(gFW + (<usize>j << 2));
 }
 
 /** Doc d, whose exact dot is `dot`, is scored: it leaves the seen docs and enters the heap if it reaches it. */
@@ -165,6 +162,11 @@ function queue(d: i32): void {
 }
 
 function flush(): void {
+  if (gWide) flushAs<i32>();
+  else flushAs<u16>();
+}
+
+@inline function flushAs<B>(): void {
   if (gN == 4) {
     const s0 = load<u32>(gDocStart + (<usize>g0 << 2));
     const s1 = load<u32>(gDocStart + (<usize>g1 << 2));
@@ -179,37 +181,24 @@ function flush(): void {
     let x1: f64 = 0;
     let x2: f64 = 0;
     let x3: f64 = 0;
-    if (gWide) {
-      for (let i: u32 = 0; i < len; i++) {
-        x0 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>(s0 + i) << 2)) << 3)) * f32at(gFW + (<usize>(s0 + i) << 2));
-        x1 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>(s1 + i) << 2)) << 3)) * f32at(gFW + (<usize>(s1 + i) << 2));
-        x2 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>(s2 + i) << 2)) << 3)) * f32at(gFW + (<usize>(s2 + i) << 2));
-        x3 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>(s3 + i) << 2)) << 3)) * f32at(gFW + (<usize>(s3 + i) << 2));
-      }
-      for (let j = s0 + len; j < e0; j++) x0 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>j << 2)) << 3)) * f32at(gFW + (<usize>j << 2));
-      for (let j = s1 + len; j < e1; j++) x1 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>j << 2)) << 3)) * f32at(gFW + (<usize>j << 2));
-      for (let j = s2 + len; j < e2; j++) x2 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>j << 2)) << 3)) * f32at(gFW + (<usize>j << 2));
-      for (let j = s3 + len; j < e3; j++) x3 += load<f64>(qDense + (<usize>load<i32>(gFBin + (<usize>j << 2)) << 3)) * f32at(gFW + (<usize>j << 2));
-    } else {
-      for (let i: u32 = 0; i < len; i++) {
-        x0 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>(s0 + i) << 1)) << 3)) * f32at(gFW + (<usize>(s0 + i) << 2));
-        x1 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>(s1 + i) << 1)) << 3)) * f32at(gFW + (<usize>(s1 + i) << 2));
-        x2 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>(s2 + i) << 1)) << 3)) * f32at(gFW + (<usize>(s2 + i) << 2));
-        x3 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>(s3 + i) << 1)) << 3)) * f32at(gFW + (<usize>(s3 + i) << 2));
-      }
-      for (let j = s0 + len; j < e0; j++) x0 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>j << 1)) << 3)) * f32at(gFW + (<usize>j << 2));
-      for (let j = s1 + len; j < e1; j++) x1 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>j << 1)) << 3)) * f32at(gFW + (<usize>j << 2));
-      for (let j = s2 + len; j < e2; j++) x2 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>j << 1)) << 3)) * f32at(gFW + (<usize>j << 2));
-      for (let j = s3 + len; j < e3; j++) x3 += load<f64>(qDense + (<usize>load<u16>(gFBin + (<usize>j << 1)) << 3)) * f32at(gFW + (<usize>j << 2));
+    for (let i: u32 = 0; i < len; i++) {
+      x0 += termAt<B>(s0 + i);
+      x1 += termAt<B>(s1 + i);
+      x2 += termAt<B>(s2 + i);
+      x3 += termAt<B>(s3 + i);
     }
+    for (let j = s0 + len; j < e0; j++) x0 += termAt<B>(j);
+    for (let j = s1 + len; j < e1; j++) x1 += termAt<B>(j);
+    for (let j = s2 + len; j < e2; j++) x2 += termAt<B>(j);
+    for (let j = s3 + len; j < e3; j++) x3 += termAt<B>(j);
     settle(g0, x0);
     settle(g1, x1);
     settle(g2, x2);
     settle(g3, x3);
   } else {
-    if (gN > 0) settle(g0, dotOf(g0));
-    if (gN > 1) settle(g1, dotOf(g1));
-    if (gN > 2) settle(g2, dotOf(g2));
+    if (gN > 0) settle(g0, dotOf<B>(g0));
+    if (gN > 1) settle(g1, dotOf<B>(g1));
+    if (gN > 2) settle(g2, dotOf<B>(g2));
   }
   gN = 0;
 }

@@ -2,7 +2,8 @@ import { execFileSync } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SearchIndex } from '../../../src/lib/search/SearchIndex';
 import { resolveSearchOptions } from '../../../src/lib/search/options';
-import { prepareQuery } from '../../../src/lib/search/prepare';
+import { prepareQuery, type PreparedSpectrum } from '../../../src/lib/search/prepare';
+import type { Segment } from '../../../src/lib/search/segment';
 import { bruteForceSegment, searchSegment, type KernelParams } from '../../../src/lib/search/searchSegment';
 import { SCORE_NAMES } from '../../../src/lib/search/types';
 import { entropyWeightsInto } from '../../../src/lib/search/entropyWeights';
@@ -67,20 +68,7 @@ describe.each(['wasm', 'js'] as CosineKernel[])('searchSegment (%s cosine kernel
   it('cosine MaxScore equals brute force on a skewed EI-like library, with duplicates, penalties and ranges', () => {
     // The benchmark's generator: peaks skewed to low m/z, so low-mass queries
     // see most docs (the sweep path) and high-mass ones few (the touched list).
-    const cols = syntheticColumns(6000, 4242);
-    // Duplicate some spectra so exact ties must fall back to doc order.
-    for (let d = 0; d < 6000; d += 97) {
-      const src = (d * 7) % 6000;
-      const n = Math.min(cols.offsets[d + 1] - cols.offsets[d], cols.offsets[src + 1] - cols.offsets[src]);
-      for (let i = 0; i < n; i++) {
-        cols.bins[cols.offsets[d] + i] = cols.bins[cols.offsets[src] + i];
-        cols.rel[cols.offsets[d] + i] = cols.rel[cols.offsets[src] + i];
-      }
-      for (let i = n; i < cols.offsets[d + 1] - cols.offsets[d]; i++) {
-        cols.bins[cols.offsets[d] + i] = 700 + i;
-        cols.rel[cols.offsets[d] + i] = 1e-3;
-      }
-    }
+    const cols = skewedLibrary(6000, 4242);
     const seg = SearchIndex.fromColumns(cols).segment;
     const r = rng(77);
     const level = { noise: 0.2, dropBelow: 0.02, dropP: 0.3, background: 3 };
@@ -108,7 +96,7 @@ describe.each(['wasm', 'js'] as CosineKernel[])('searchSegment (%s cosine kernel
 /** A skewed EI-like library (the benchmark's generator) with some exact duplicates, so ties must fall back to doc order. */
 function skewedLibrary(count: number, seed: number) {
   const cols = syntheticColumns(count, seed);
-  for (let d = 0; d < count; d += 89) {
+  for (let d = 0; d < count; d += 97) {
     const src = (d * 7) % count;
     const n = Math.min(cols.offsets[d + 1] - cols.offsets[d], cols.offsets[src + 1] - cols.offsets[src]);
     for (let i = 0; i < n; i++) {
@@ -121,6 +109,19 @@ function skewedLibrary(count: number, seed: number) {
     }
   }
   return cols;
+}
+
+/** Runs the JavaScript and the compiled cosine kernel and expects the same hits to the bit, postings read and docs rescored. */
+function sameFromBothKernels(seg: Segment, q: PreparedSpectrum, params: KernelParams) {
+  setCosineKernel('js');
+  const js = searchSegment(seg, q, params);
+  setCosineKernel('wasm');
+  const wasm = searchSegment(seg, q, params);
+  expect(Array.from(wasm.docs)).toEqual(Array.from(js.docs));
+  expect(Array.from(wasm.rank)).toEqual(Array.from(js.rank));
+  expect(Array.from(wasm.scores)).toEqual(Array.from(js.scores));
+  expect([wasm.postings, wasm.evaluated]).toEqual([js.postings, js.evaluated]);
+  return wasm;
 }
 
 describe('the compiled cosine kernel', () => {
@@ -157,14 +158,25 @@ describe('the compiled cosine kernel', () => {
         generic: null,
         noPruning: qi % 11 === 0,
       };
-      setCosineKernel('js');
-      const js = searchSegment(seg, q, params);
-      setCosineKernel('wasm');
-      const wasm = searchSegment(seg, q, params);
-      expect(Array.from(wasm.docs)).toEqual(Array.from(js.docs));
-      expect(Array.from(wasm.rank)).toEqual(Array.from(js.rank));
-      expect(Array.from(wasm.scores)).toEqual(Array.from(js.scores));
-      expect([wasm.postings, wasm.evaluated]).toEqual([js.postings, js.evaluated]);
+      sameFromBothKernels(seg, q, params);
+    }
+  });
+
+  it('returns what the JavaScript kernel returns with bins past 65,535 (32-bit bin numbers)', () => {
+    const base = syntheticColumns(3000, 77);
+    const bins = Int32Array.from(base.bins);
+    // Every 50th spectrum gets a heavy peak far out, so the segment stores 32-bit bins.
+    for (let d = 0; d < base.count; d += 50) bins[base.offsets[d + 1] - 1] = 70_000 + (d % 7);
+    const cols = { ...base, bins };
+    const seg = SearchIndex.fromColumns(cols).segment;
+    expect(seg.fBin).toBeInstanceOf(Int32Array);
+    const r = rng(5);
+    const level = { noise: 0.2, dropBelow: 0.02, dropP: 0.3, background: 3 };
+    for (let qi = 0; qi < 20; qi++) {
+      const peaks = noisyReplicate(docPeaks(cols, qi % 2 === 0 ? 50 * Math.floor(r() * 60) : Math.floor(r() * cols.count)), r, level);
+      const q = prepareQuery(peaks, resolveSearchOptions({ rankBy: 'cosine', limit: 20 }));
+      const params: KernelParams = { k: 20, rankBy: 'cosine', allow: seg.live, penalty: 0, lo: 0, hi: seg.n, generic: null };
+      expect(asKeys(sameFromBothKernels(seg, q, params))).toEqual(asKeys(bruteForceSegment(seg, q, params)));
     }
   });
 
