@@ -56,18 +56,23 @@ export interface KernelResult {
   evaluated: number;
 }
 
-interface Scratch {
-  /** Cosine, per doc d: [2d] 0 not seen, > 0 partial dot, -1 scored exactly; [2d+1] sum of the read weights' squares. */
+/** The JavaScript cosine kernel's per-doc state (allocated on its first use: the compiled kernel has its own). */
+interface CosineScratch {
+  /** Per doc d: [2d] 0 not seen, > 0 partial dot, -1 scored exactly; [2d+1] sum of the read weights' squares. */
   acc: Float32Array;
-  /** Cosine, per doc: 1 while seen and not yet scored exactly, else 0 (a multiplier, so updates need no branch). */
+  /** Per doc: 1 while seen and not yet scored exactly, else 0 (a multiplier, so updates need no branch). */
   seen: Uint8Array;
   candD: Int32Array;
   candV: Float64Array;
   candS: Int32Array;
   bucket: Int32Array;
   hist: Float64Array;
-  /** The query's weights by bin (0 elsewhere), during a cosine search. */
+  /** The query's weights by bin (0 elsewhere), during a search. */
   qDense: Float64Array;
+}
+
+interface Scratch {
+  cos: CosineScratch | null;
   /** Per doc d, interleaved so one cache line serves a posting: [4d] dot, [4d+1] ratio or q^2 sum, [4d+2] previous ratio, [4d+3] shared count. */
   st: Float64Array;
   flag: Uint8Array;
@@ -90,15 +95,7 @@ function scratchFor(seg: Segment): Scratch {
   if (!s) {
     if (scratchCache.size >= 2) scratchCache.delete(scratchCache.keys().next().value as number);
     s = {
-      acc: new Float32Array(seg.n * 2),
-      seen: new Uint8Array(seg.n),
-      // (+1: the branch-free list writes go one past the last kept entry.)
-      candD: new Int32Array(seg.n + 1),
-      candV: new Float64Array(seg.n),
-      candS: new Int32Array(seg.n),
-      bucket: new Int32Array(257),
-      hist: new Float64Array(1025),
-      qDense: new Float64Array(seg.nBins),
+      cos: null,
       st: new Float64Array(seg.n * 4),
       flag: new Uint8Array(seg.n),
       touched: new Int32Array(seg.n),
@@ -112,6 +109,23 @@ function scratchFor(seg: Segment): Scratch {
     scratchCache.set(seg.id, s);
   }
   return s;
+}
+
+function cosineScratch(seg: Segment, sc: Scratch): CosineScratch {
+  if (sc.cos === null) {
+    sc.cos = {
+      acc: new Float32Array(seg.n * 2),
+      seen: new Uint8Array(seg.n),
+      // (+1: the branch-free list writes go one past the last kept entry.)
+      candD: new Int32Array(seg.n + 1),
+      candV: new Float64Array(seg.n),
+      candS: new Int32Array(seg.n),
+      bucket: new Int32Array(257),
+      hist: new Float64Array(1025),
+      qDense: new Float64Array(seg.nBins),
+    };
+  }
+  return sc.cos;
 }
 
 /** Index the query's peaks by bin for scoreMerged (library bins are all < nBins). */
@@ -470,8 +484,9 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   const T = terms.tBin.length;
   const { allow, penalty } = p;
   const { pDoc, pW, docStart, fBin, fW, docNorm } = seg;
-  const acc = sc.acc;
-  const seen = sc.seen;
+  const cs = cosineScratch(seg, sc);
+  const acc = cs.acc;
+  const seen = cs.seen;
   const touched = sc.touched;
   let nTouched = 0;
   let postings = 0;
@@ -487,7 +502,7 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   // shared peaks' products added in m/z order, as scoreMerged adds them
   // (adding the zeros of unshared peaks changes no bit), so the value is the
   // brute-force reference's to the last bit.
-  const qDense = sc.qDense;
+  const qDense = cs.qDense;
   for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < seg.nBins) qDense[q.bins[i]] = q.w[i];
   const qNorm = q.norm;
   const dotOf = (d: number) => {
@@ -555,7 +570,7 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   // `cut` (the k-th partial dot of the last refresh; every doc left unscored
   // was at or below it) are listed in `hot`, and the next refresh picks from
   // that list alone instead of every seen doc.
-  const hot = sc.candD;
+  const hot = cs.candD;
   let nHot = 0;
   let cut = Infinity;
   const refresh = () => {
@@ -628,7 +643,7 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   // bin's postings cost less than the rescoring they could spare (estimated
   // from a histogram of the partial dots taken once, as they only grow).
   const H = 1024;
-  const hist = sc.hist;
+  const hist = cs.hist;
   hist.fill(0);
   // (An estimate only, so one seen doc in four is counted, four times.)
   if (pos < T) {
@@ -669,8 +684,8 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   const rest = R[pos];
   const qRest = Q[pos];
   const th0 = theta();
-  const candD = sc.candD;
-  const candV = sc.candV;
+  const candD = cs.candD;
+  const candV = cs.candV;
   let nCand = 0;
   let maxV = -Infinity;
   // Cheap test first, without a branch: the bound is at most a + rest. The
@@ -702,7 +717,7 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
     const NB = 256;
     const floor = th0 === -Infinity ? 0 : th0;
     const width = (maxV - floor) / NB || 1;
-    const count = sc.bucket;
+    const count = cs.bucket;
     count.fill(0);
     // (Clamped at both ends: with no k-th score yet a penalized bound can fall below the floor.)
     const bucketOf = (v: number) => Math.min(NB - 1, Math.max(0, Math.floor((v - floor) / width)));
@@ -714,7 +729,7 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
       count[b] = sum;
       sum += c;
     }
-    const sorted = sc.candS;
+    const sorted = cs.candS;
     for (let i = 0; i < nCand; i++) sorted[count[NB - 1 - bucketOf(candV[i])]++] = i;
     for (let s = 0; s < nCand; s++) {
       const i = sorted[s];

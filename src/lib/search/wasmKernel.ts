@@ -43,7 +43,7 @@ export function setCosineKernel(k: CosineKernel): void {
 /** Bytes of one thread's scratch for a segment of n docs and nBins bins. */
 function scratchBytes(n: number, nBins: number): number {
   const k = MAX_LIMIT;
-  return 128 + 8 * 2 * n + n + 4 * n + 4 * (n + 1) + 8 * n + 4 * n + 8 * nBins + 4 * 257 + 8 * 1025 + 2 * (12 * k) + nBins * 16 + 2 * 8 * (nBins + 1) + 32 + n + 16 * 24;
+  return 128 + 4 * 2 * n + n + 4 * n + 4 * (n + 1) + 8 * n + 4 * n + 8 * nBins + 4 * 257 + 8 * 1025 + 2 * (12 * k) + nBins * 16 + 2 * 8 * (nBins + 1) + 32 + n + 16 * 24;
 }
 
 /** Bump allocator over a segment's shared memory (8-byte aligned; the first page is left to the module). */
