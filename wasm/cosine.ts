@@ -467,3 +467,98 @@ export function cosine(
   const v = min<f64>(<f64>H, max<f64>(0, Math.floor((theta() - rest) * <f64>H)));
   return load<f64>(hist + (<usize><i32>v << 3));
 }
+
+// The one-pass scores (see searchSegment.ts: "One pass in m/z order"): the
+// composite's, the reverse cosine's and the entropy similarity's per-doc sums
+// from the stored weights, every shared posting read once in m/z order, block
+// by block of docs so a block's state stays in cache. The same operations in
+// the same order as the JavaScript loops (the entropy's logarithm is this
+// module's own, so its sums may differ from them in the last bit; they only
+// pick the docs that are then scored exactly, with a slack far above that).
+// State per doc d at st + 32 d: [0] dot, [1] ratio sum or q^2 sum, [2]
+// previous ratio, [3] shared count. Returns the touched count.
+export function onePass(
+  S: usize,
+  mode: i32,
+  pDoc: usize,
+  pW: usize,
+  pE: usize,
+  allow: usize,
+  lo: i32,
+  hi: i32,
+  T: i32,
+  block: i32,
+): i32 {
+  const st: usize = load<u32>(S, 80);
+  const cur: usize = load<u32>(S, 84);
+  const tA: usize = load<u32>(S, 88);
+  const tQ: usize = load<u32>(S, 52);
+  const tFrom: usize = load<u32>(S, 56);
+  const tTo: usize = load<u32>(S, 60);
+  const touchedP: usize = load<u32>(S, 8);
+  let nTouched: i32 = 0;
+  for (let t = 0; t < T; t++) store<u32>(cur + (<usize>t << 2), load<u32>(tFrom + (<usize>t << 2)));
+  for (let blockEnd = lo + block; ; blockEnd += block) {
+    const stop = min<i32>(blockEnd, hi);
+    for (let t = 0; t < T; t++) {
+      const x = load<f64>(tQ + (<usize>t << 3));
+      const end = load<u32>(tTo + (<usize>t << 2));
+      let j = load<u32>(cur + (<usize>t << 2));
+      if (mode == 0) {
+        const invX = 1 / x;
+        for (; j < end; j++) {
+          const d = load<i32>(pDoc + (<usize>j << 2));
+          if (d >= stop) break;
+          if (load<u8>(allow + <usize>d) == 0) continue;
+          const w = f32at(pW + (<usize>j << 2));
+          const rho = w * invX;
+          const o = st + (<usize>d << 5);
+          const c = load<f64>(o, 24);
+          store<i32>(touchedP + (<usize>nTouched << 2), d);
+          nTouched += <i32>(c == 0);
+          const prev = load<f64>(o, 16);
+          const sum = rho + prev;
+          const gap = abs<f64>(rho - prev);
+          store<f64>(o, load<f64>(o, 8) + (sum - gap) / (sum + gap), 8);
+          store<f64>(o, rho, 16);
+          store<f64>(o, c + 1, 24);
+          store<f64>(o, load<f64>(o) + x * w);
+        }
+      } else if (mode == 1) {
+        const xx = x * x;
+        for (; j < end; j++) {
+          const d = load<i32>(pDoc + (<usize>j << 2));
+          if (d >= stop) break;
+          if (load<u8>(allow + <usize>d) == 0) continue;
+          const o = st + (<usize>d << 5);
+          if (load<f64>(o, 24) == 0) {
+            store<i32>(touchedP + (<usize>nTouched << 2), d);
+            nTouched++;
+            store<f64>(o, 1, 24);
+          }
+          store<f64>(o, load<f64>(o) + x * f32at(pW + (<usize>j << 2)));
+          store<f64>(o, load<f64>(o, 8) + xx, 8);
+        }
+      } else {
+        const a = load<f64>(tA + (<usize>t << 3));
+        const aLnA = a > 0 ? a * Math.log(a) : 0;
+        for (; j < end; j++) {
+          const d = load<i32>(pDoc + (<usize>j << 2));
+          if (d >= stop) break;
+          if (load<u8>(allow + <usize>d) == 0) continue;
+          const o = st + (<usize>d << 5);
+          if (load<f64>(o, 24) == 0) {
+            store<i32>(touchedP + (<usize>nTouched << 2), d);
+            nTouched++;
+            store<f64>(o, 1, 24);
+          }
+          const b = f32at(pE + (<usize>j << 2));
+          if (a > 0 && b > 0) store<f64>(o, load<f64>(o) + ((a + b) * Math.log(a + b) - aLnA - b * Math.log(b)));
+        }
+      }
+      store<u32>(cur + (<usize>t << 2), j);
+    }
+    if (stop >= hi) break;
+  }
+  return nTouched;
+}

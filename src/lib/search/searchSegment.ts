@@ -94,17 +94,19 @@ function scratchFor(seg: Segment): Scratch {
   let s = scratchCache.get(seg.id);
   if (!s) {
     if (scratchCache.size >= 2) scratchCache.delete(scratchCache.keys().next().value as number);
+    const wasm = seg.memory && seg.n > 0 ? wasmScratch(seg.memory, seg.n, seg.nBins) : null;
     s = {
       cos: null,
-      st: new Float64Array(seg.n * 4),
+      // (With the compiled kernel, the one-pass state and touched list live in its scratch, for both kernels.)
+      st: wasm ? wasm.st : new Float64Array(seg.n * 4),
       flag: new Uint8Array(seg.n),
-      touched: new Int32Array(seg.n),
+      touched: wasm ? wasm.touched : new Int32Array(seg.n),
       gBins: new Int32Array(seg.maxDocPeaks),
       gW: new Float64Array(seg.maxDocPeaks),
       gE: new Float64Array(seg.maxDocPeaks),
       qIdx: new Int32Array(seg.nBins).fill(-1),
       eParams: new Float64Array(3),
-      wasm: seg.memory && seg.n > 0 ? wasmScratch(seg.memory, seg.n, seg.nBins) : null,
+      wasm,
     };
     scratchCache.set(seg.id, s);
   }
@@ -296,71 +298,83 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
   if (rankBy !== 'cosine') {
     // One pass in m/z order, block by block of docs so the per-doc state of a
     // block stays in cache (postings are sorted by doc, one cursor per bin).
-    const cur = tFrom.slice();
     for (let t = 0; t < T; t++) postings += tTo[t] - tFrom[t];
-    for (let blockEnd = lo + BLOCK; ; blockEnd += BLOCK) {
-      const stop = Math.min(blockEnd, hi);
+    const w = sc.wasm;
+    if (w !== null && cosineKernel() === 'wasm') {
+      // Compiled (onePass in wasm/cosine.ts, the same loops): terms in m/z order into its scratch.
       for (let t = 0; t < T; t++) {
-        const x = tQ[t];
-        const end = tTo[t];
-        let j = cur[t];
-        if (rankBy === 'composite') {
-          const invX = 1 / x;
-          for (; j < end; j++) {
-            const d = pDoc[j];
-            if (d >= stop) break;
-            if (allow[d] === 0) continue;
-            const w = pW[j];
-            const rho = w * invX;
-            const o = d << 2;
-            const c = st[o + 3];
-            touched[nTouched] = d;
-            nTouched += c === 0 ? 1 : 0;
-            // min(r, 1/r) of r = rho / previous rho as min / max, written
-            // (s - g) / (s + g) with s the sum and g the absolute difference:
-            // no branch (r <= 1 mispredicts half the time, and so do Math.min
-            // and Math.max), and 0 for a doc's first shared peak (prev = 0).
-            const prev = st[o + 2];
-            const sum = rho + prev;
-            const gap = Math.abs(rho - prev);
-            st[o + 1] += (sum - gap) / (sum + gap);
-            st[o + 2] = rho;
-            st[o + 3] = c + 1;
-            st[o] += x * w;
-          }
-        } else if (rankBy === 'reverseCosine') {
-          const xx = x * x;
-          for (; j < end; j++) {
-            const d = pDoc[j];
-            if (d >= stop) break;
-            if (allow[d] === 0) continue;
-            const o = d << 2;
-            if (st[o + 3] === 0) {
-              touched[nTouched++] = d;
-              st[o + 3] = 1;
-            }
-            st[o] += x * pW[j];
-            st[o + 1] += xx;
-          }
-        } else {
-          const a = tA[t];
-          const aLnA = a > 0 ? a * Math.log(a) : 0;
-          for (; j < end; j++) {
-            const d = pDoc[j];
-            if (d >= stop) break;
-            if (allow[d] === 0) continue;
-            const o = d << 2;
-            if (st[o + 3] === 0) {
-              touched[nTouched++] = d;
-              st[o + 3] = 1;
-            }
-            const b = pE[j];
-            if (a > 0 && b > 0) st[o] += (a + b) * Math.log(a + b) - aLnA - b * Math.log(b);
-          }
-        }
-        cur[t] = j;
+        w.oQ[t] = tQ[t];
+        w.oFrom[t] = tFrom[t];
+        w.oTo[t] = tTo[t];
+        w.oA[t] = tA[t];
       }
-      if (stop >= hi) break;
+      nTouched = w.onePass(w.header, ONE_PASS_MODE[rankBy], pDoc.byteOffset, pW.byteOffset, pE.byteOffset, allowOffset(seg, p, w, lo, hi), lo, hi, T, BLOCK);
+    } else {
+      const cur = tFrom.slice();
+      for (let blockEnd = lo + BLOCK; ; blockEnd += BLOCK) {
+        const stop = Math.min(blockEnd, hi);
+        for (let t = 0; t < T; t++) {
+          const x = tQ[t];
+          const end = tTo[t];
+          let j = cur[t];
+          if (rankBy === 'composite') {
+            const invX = 1 / x;
+            for (; j < end; j++) {
+              const d = pDoc[j];
+              if (d >= stop) break;
+              if (allow[d] === 0) continue;
+              const w = pW[j];
+              const rho = w * invX;
+              const o = d << 2;
+              const c = st[o + 3];
+              touched[nTouched] = d;
+              nTouched += c === 0 ? 1 : 0;
+              // min(r, 1/r) of r = rho / previous rho as min / max, written
+              // (s - g) / (s + g) with s the sum and g the absolute difference:
+              // no branch (r <= 1 mispredicts half the time, and so do Math.min
+              // and Math.max), and 0 for a doc's first shared peak (prev = 0).
+              const prev = st[o + 2];
+              const sum = rho + prev;
+              const gap = Math.abs(rho - prev);
+              st[o + 1] += (sum - gap) / (sum + gap);
+              st[o + 2] = rho;
+              st[o + 3] = c + 1;
+              st[o] += x * w;
+            }
+          } else if (rankBy === 'reverseCosine') {
+            const xx = x * x;
+            for (; j < end; j++) {
+              const d = pDoc[j];
+              if (d >= stop) break;
+              if (allow[d] === 0) continue;
+              const o = d << 2;
+              if (st[o + 3] === 0) {
+                touched[nTouched++] = d;
+                st[o + 3] = 1;
+              }
+              st[o] += x * pW[j];
+              st[o + 1] += xx;
+            }
+          } else {
+            const a = tA[t];
+            const aLnA = a > 0 ? a * Math.log(a) : 0;
+            for (; j < end; j++) {
+              const d = pDoc[j];
+              if (d >= stop) break;
+              if (allow[d] === 0) continue;
+              const o = d << 2;
+              if (st[o + 3] === 0) {
+                touched[nTouched++] = d;
+                st[o + 3] = 1;
+              }
+              const b = pE[j];
+              if (a > 0 && b > 0) st[o] += (a + b) * Math.log(a + b) - aLnA - b * Math.log(b);
+            }
+          }
+          cur[t] = j;
+        }
+        if (stop >= hi) break;
+      }
     }
     const nU = q.n;
     const approx = (d: number): number => {
@@ -427,6 +441,16 @@ function termOrder(seg: Segment, terms: Terms, R: Float64Array, Q: Float64Array)
   return order;
 }
 
+/** Where the compiled kernels read the filter mask: the segment's live flags, or a copy of the task's mask in the scratch. */
+function allowOffset(seg: Segment, p: KernelParams, w: WasmScratch, lo: number, hi: number): number {
+  if (p.allow === seg.live) return seg.live.byteOffset;
+  w.allow.set(p.allow.subarray(lo, hi), lo);
+  return w.allow.byteOffset;
+}
+
+/** onePass's mode for each one-pass ranking. */
+const ONE_PASS_MODE: Record<ScoreName, number> = { composite: 0, reverseCosine: 1, entropy: 2, cosine: -1 };
+
 /**
  * cosineMaxScore, compiled (wasm/cosine.ts is its line-by-line port): the
  * query's terms in order and its dense weights go into this thread's scratch
@@ -445,13 +469,7 @@ function cosineWasm(seg: Segment, q: PreparedSpectrum, p: KernelParams, w: WasmS
   for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < seg.nBins) qDense[q.bins[i]] = q.w[i];
   const lo = Math.max(0, p.lo);
   const hi = Math.min(seg.n, p.hi);
-  let allowAt = seg.live.byteOffset;
-  if (p.allow !== seg.live) {
-    // A filter mask: copy the searched range into the scratch's own.
-    w.allow.set(p.allow.subarray(lo, hi), lo);
-    allowAt = w.allow.byteOffset;
-  }
-  w.cosine(w.header, seg.docStart.byteOffset, seg.fBin.byteOffset, seg.fBin instanceof Int32Array ? 1 : 0, seg.fW.byteOffset, seg.docNorm.byteOffset, seg.pDoc.byteOffset, seg.pW.byteOffset, allowAt, lo, hi, p.k, T, p.noPruning ? 1 : 0, p.penalty, q.norm);
+  w.cosine(w.header, seg.docStart.byteOffset, seg.fBin.byteOffset, seg.fBin instanceof Int32Array ? 1 : 0, seg.fW.byteOffset, seg.docNorm.byteOffset, seg.pDoc.byteOffset, seg.pW.byteOffset, allowOffset(seg, p, w, lo, hi), lo, hi, p.k, T, p.noPruning ? 1 : 0, p.penalty, q.norm);
   for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < seg.nBins) qDense[q.bins[i]] = 0;
   const size = w.out[2];
   heap.size = size;

@@ -43,7 +43,7 @@ export function setCosineKernel(k: CosineKernel): void {
 /** Bytes of one thread's scratch for a segment of n docs and nBins bins. */
 function scratchBytes(n: number, nBins: number): number {
   const k = MAX_LIMIT;
-  return 128 + 4 * 2 * n + n + 4 * n + 4 * (n + 1) + 8 * n + 4 * n + 8 * nBins + 4 * 257 + 8 * 1025 + 2 * (12 * k) + nBins * 16 + 2 * 8 * (nBins + 1) + 32 + n + 16 * 24;
+  return 128 + 4 * 2 * n + n + 4 * n + 4 * (n + 1) + 8 * n + 4 * n + 8 * nBins + 4 * 257 + 8 * 1025 + 2 * (12 * k) + nBins * 16 + 2 * 8 * (nBins + 1) + 32 + n + 32 * n + 4 * nBins + 8 * nBins + 16 * 24;
 }
 
 /** Bump allocator over a segment's shared memory (8-byte aligned; the first page is left to the module). */
@@ -79,6 +79,7 @@ export class Arena {
 /** One thread's state for the compiled kernel on one segment. */
 export interface WasmScratch {
   cosine: (...args: number[]) => void;
+  onePass: (...args: number[]) => number;
   header: number;
   qDense: Float64Array;
   oQ: Float64Array;
@@ -90,6 +91,11 @@ export interface WasmScratch {
   heapD: Int32Array;
   out: Float64Array;
   allow: Uint8Array;
+  /** The one-pass scores' state, 4 numbers a doc (searchSegment.ts uses it as its own). */
+  st: Float64Array;
+  touched: Int32Array;
+  /** Entropy intensities of the query's terms, for the one-pass entropy. */
+  oA: Float64Array;
 }
 
 /** Grow the segment's memory by this thread's scratch and instantiate the kernel on it; null if that fails. */
@@ -117,7 +123,8 @@ export function wasmScratch(memory: WebAssembly.Memory, n: number, nBins: number
   const ptrs: number[] = [];
   ptrs.push(take(Float32Array, 2 * n)[1]); // acc
   ptrs.push(take(Uint8Array, n)[1]); // seen
-  ptrs.push(take(Int32Array, n)[1]); // touched
+  const [touched, touchedP] = take(Int32Array, n);
+  ptrs.push(touchedP);
   ptrs.push(take(Int32Array, n + 1)[1]); // candD
   ptrs.push(take(Float64Array, n)[1]); // candV
   ptrs.push(take(Int32Array, n)[1]); // candS
@@ -137,10 +144,17 @@ export function wasmScratch(memory: WebAssembly.Memory, n: number, nBins: number
   const [out, outP] = take(Float64Array, 4);
   ptrs.push(oQP, oFromP, oToP, RP, QP, outP);
   const [allow] = take(Uint8Array, n);
+  // The one-pass scores (onePass): header slots 20, 21, 22 (slot 19 is unused).
+  ptrs.push(0);
+  const [st, stP] = take(Float64Array, 4 * n);
+  ptrs.push(stP, take(Uint32Array, nBins)[1]); // per-doc state, a cursor per bin
+  const [oA, oAP] = take(Float64Array, nBins);
+  ptrs.push(oAP);
   if (at > base + Math.ceil(bytes / PAGE) * PAGE) throw new RangeError('wasm scratch overflow');
   header.set(ptrs);
   return {
     cosine: instance.exports.cosine as (...args: number[]) => void,
+    onePass: instance.exports.onePass as (...args: number[]) => number,
     header: base,
     qDense,
     oQ,
@@ -152,5 +166,8 @@ export function wasmScratch(memory: WebAssembly.Memory, n: number, nBins: number
     heapD,
     out,
     allow,
+    st,
+    touched,
+    oA,
   };
 }

@@ -180,6 +180,33 @@ describe('the compiled cosine kernel', () => {
     }
   });
 
+  it('computes the one-pass scores (composite, reverse cosine, entropy) as the JavaScript loops do: the same hits to the bit', () => {
+    const cols = skewedLibrary(5000, 6060);
+    const seg = SearchIndex.fromColumns(cols).segment;
+    const r = rng(12);
+    const level = { noise: 0.2, dropBelow: 0.02, dropP: 0.3, background: 3 };
+    for (let qi = 0; qi < 30; qi++) {
+      const rankBy = (['composite', 'reverseCosine', 'entropy'] as const)[qi % 3];
+      const k = [1, 20, 100][qi % 3];
+      const q = prepareQuery(noisyReplicate(docPeaks(cols, Math.floor(r() * cols.count)), r, level), resolveSearchOptions({ rankBy, limit: k }));
+      let allow = seg.live;
+      if (qi % 4 === 1) {
+        allow = new Uint8Array(seg.n);
+        for (let d = 0; d < seg.n; d++) allow[d] = [0, 1, 1, 2][Math.floor(r() * 4)];
+      }
+      const params: KernelParams = { k, rankBy, allow, penalty: 0.05, lo: qi % 5 === 0 ? 700 : 0, hi: qi % 7 === 0 ? 4100 : seg.n, generic: null };
+      setCosineKernel('js');
+      const js = searchSegment(seg, q, params);
+      setCosineKernel('wasm');
+      const wasm = searchSegment(seg, q, params);
+      expect(asKeys(wasm)).toEqual(asKeys(js));
+      expect(Array.from(wasm.scores)).toEqual(Array.from(js.scores));
+      expect(asKeys(wasm)).toEqual(asKeys(bruteForceSegment(seg, q, params)));
+      // (The entropy's logarithm is the module's own: its one-pass sums, and so the docs rescored, may differ in rare cases.)
+      if (rankBy !== 'entropy') expect([wasm.postings, wasm.evaluated]).toEqual([js.postings, js.evaluated]);
+    }
+  });
+
   it('is what wasm/cosine.ts compiles to (scripts/build-wasm.mjs --check)', () => {
     expect(() => execFileSync(process.execPath, ['scripts/build-wasm.mjs', '--check'], { stdio: 'pipe' })).not.toThrow();
   }, 60_000);
