@@ -11,7 +11,7 @@ import { closeSearchPool, getSearchPool } from '../src/lib/search/pool';
 import { resolveSearchOptions } from '../src/lib/search/options';
 import { prepareQuery, stageStored } from '../src/lib/search/prepare';
 import { scanFloor } from '../src/lib/search/searchSegment';
-import { cosineKernel } from '../src/lib/search/wasmKernel';
+import { searchKernel } from '../src/lib/search/wasmKernel';
 import { runSearchTask, type SearchTask, type TaskHits } from '../src/lib/search/runSearchTask';
 import type { StoredColumns } from '../src/lib/search/segment';
 import { SCORE_NAMES, type LibraryEntry, type Peak, type ScoreName, type SearchOptions } from '../src/lib/search/types';
@@ -375,9 +375,9 @@ async function benchAccuracy() {
 async function main() {
   const started = performance.now();
   const pool = getSearchPool();
-  // The cosine kernel: compiled (WebAssembly) where the segments live in a WebAssembly memory, else JavaScript (SEARCH_KERNEL=js forces it).
-  const kernel = SearchIndex.fromColumns(syntheticColumns(10, 1)).segment.memory !== null && cosineKernel() === 'wasm' ? 'wasm' : 'js';
-  log(`search bench (${FULL ? 'full' : 'quick'}); node ${process.version}; ${os.cpus().length} cpus; pool: ${pool ? `${pool.threads} threads, ${pool.location.source}` : 'none (in-thread)'}; cosine kernel: ${kernel}`);
+  // The kernels: compiled (WebAssembly) where the segments live in a WebAssembly memory, else JavaScript (SEARCH_KERNEL=js forces it).
+  const kernel = SearchIndex.fromColumns(syntheticColumns(10, 1)).segment.memory !== null && searchKernel() === 'wasm' ? 'wasm' : 'js';
+  log(`search bench (${FULL ? 'full' : 'quick'}); node ${process.version}; ${os.cpus().length} cpus; pool: ${pool ? `${pool.threads} threads, ${pool.location.source}` : 'none (in-thread)'}; kernels: ${kernel}`);
   const runs: Run[] = [];
   let batchOut: Awaited<ReturnType<typeof benchBatch>> | null = null;
   collectGarbage();
@@ -395,7 +395,7 @@ async function main() {
     node: process.version,
     cpus: os.cpus().length,
     mode: FULL ? 'full' : 'quick',
-    cosineKernel: kernel,
+    searchKernel: kernel,
     runs,
     batch: batchOut?.batch ?? null,
     loadFromDb: { spectra: 100_000, ms: loadMs, note: loadMs === null ? 'measured with --full only' : 'private MariaDB, synthetic released versions, full index rebuild as at server start' },

@@ -3,7 +3,7 @@ import { scoreMerged, SCORE_SLOT } from './scorePrepared';
 import type { Segment } from './segment';
 import { TopK } from './topK';
 import type { PeakWeights, ScoreName } from './types';
-import { cosineKernel, wasmScratch, type WasmScratch } from './wasmKernel';
+import { searchKernel, wasmScratch, type WasmScratch } from './wasmKernel';
 import { MAX_LIMIT } from './options';
 
 const LN4 = Math.log(4);
@@ -300,7 +300,7 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
     // block stays in cache (postings are sorted by doc, one cursor per bin).
     for (let t = 0; t < T; t++) postings += tTo[t] - tFrom[t];
     const w = sc.wasm;
-    if (w !== null && cosineKernel() === 'wasm') {
+    if (w !== null && searchKernel() === 'wasm') {
       // Compiled (onePass in wasm/cosine.ts, the same loops): terms in m/z order into its scratch.
       for (let t = 0; t < T; t++) {
         w.oQ[t] = tQ[t];
@@ -402,7 +402,7 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
 
   // Cosine: MaxScore over float32 accumulators (see cosineMaxScore), compiled where it can be.
   const terms = { tBin, tQ, tFrom, tTo };
-  const c = sc.wasm !== null && cosineKernel() === 'wasm' && p.k <= MAX_LIMIT ? cosineWasm(seg, q, p, sc.wasm, heap, terms) : cosineMaxScore(seg, q, p, sc, heap, terms);
+  const c = sc.wasm !== null && searchKernel() === 'wasm' && p.k <= MAX_LIMIT ? cosineWasm(seg, q, p, sc.wasm, heap, terms) : cosineMaxScore(seg, q, p, sc, heap, terms);
   postings += c.postings;
   evaluated += c.evaluated;
   return done();

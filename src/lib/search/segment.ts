@@ -64,7 +64,7 @@ export interface Segment {
   live: Uint8Array;
   /**
    * The shared WebAssembly memory every array above lives in (see
-   * wasmKernel.ts), so the compiled cosine kernel can read them; null when
+   * wasmKernel.ts), so the compiled kernels can read them; null when
    * they are plain SharedArrayBuffers (no WebAssembly, or too large).
    */
   memory: WebAssembly.Memory | null;

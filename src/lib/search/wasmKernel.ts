@@ -1,4 +1,4 @@
-// The compiled cosine kernel (wasm/cosine.ts) and the memory it works in.
+// The compiled search kernels (wasm/cosine.ts) and the memory they work in.
 //
 // A segment's arrays are carved from one shared WebAssembly.Memory (its
 // buffer is a SharedArrayBuffer, so workers still share them without copies),
@@ -29,14 +29,14 @@ export function cosineModule(): WebAssembly.Module | null {
   return module;
 }
 
-export type CosineKernel = 'wasm' | 'js';
-let kernel: CosineKernel = process.env.SEARCH_KERNEL === 'js' ? 'js' : 'wasm';
+export type SearchKernel = 'wasm' | 'js';
+let kernel: SearchKernel = process.env.SEARCH_KERNEL === 'js' ? 'js' : 'wasm';
 
-/** Which cosine kernel searches use: 'wasm' (default) or 'js' (`SEARCH_KERNEL=js`, or set here, for tests and the benchmark). */
-export function cosineKernel(): CosineKernel {
+/** Which kernels searches use (the cosine MaxScore and the one-pass scores): 'wasm' (default) or 'js' (`SEARCH_KERNEL=js`, or set here, for tests and the benchmark). */
+export function searchKernel(): SearchKernel {
   return kernel;
 }
-export function setCosineKernel(k: CosineKernel): void {
+export function setSearchKernel(k: SearchKernel): void {
   kernel = k;
 }
 

@@ -8,15 +8,15 @@ import { bruteForceSegment, searchSegment, type KernelParams } from '../../../sr
 import { SCORE_NAMES } from '../../../src/lib/search/types';
 import { entropyWeightsInto } from '../../../src/lib/search/entropyWeights';
 import { scoreMerged } from '../../../src/lib/search/scorePrepared';
-import { setCosineKernel, type CosineKernel } from '../../../src/lib/search/wasmKernel';
+import { setSearchKernel, type SearchKernel } from '../../../src/lib/search/wasmKernel';
 import { noisyQuery, randomLibrary, rng } from './helpers';
 import { docPeaks, noisyReplicate, syntheticColumns } from '../../../bench/synthetic';
 
 const asKeys = (r: { docs: Int32Array; rank: Float64Array }) => Array.from(r.docs, (d, i) => `${d}:${r.rank[i]}`);
 
-describe.each(['wasm', 'js'] as CosineKernel[])('searchSegment (%s cosine kernel)', (kernel) => {
-  beforeAll(() => setCosineKernel(kernel));
-  afterAll(() => setCosineKernel('wasm'));
+describe.each(['wasm', 'js'] as SearchKernel[])('searchSegment (%s kernels)', (kernel) => {
+  beforeAll(() => setSearchKernel(kernel));
+  afterAll(() => setSearchKernel('wasm'));
 
   it('pruning never changes the top-k: pruned = unpruned = brute force (seeded libraries and queries)', () => {
     for (let seed = 1; seed <= 5; seed++) {
@@ -113,9 +113,9 @@ function skewedLibrary(count: number, seed: number) {
 
 /** Runs the JavaScript and the compiled cosine kernel and expects the same hits to the bit, postings read and docs rescored. */
 function sameFromBothKernels(seg: Segment, q: PreparedSpectrum, params: KernelParams) {
-  setCosineKernel('js');
+  setSearchKernel('js');
   const js = searchSegment(seg, q, params);
-  setCosineKernel('wasm');
+  setSearchKernel('wasm');
   const wasm = searchSegment(seg, q, params);
   expect(Array.from(wasm.docs)).toEqual(Array.from(js.docs));
   expect(Array.from(wasm.rank)).toEqual(Array.from(js.rank));
@@ -125,7 +125,7 @@ function sameFromBothKernels(seg: Segment, q: PreparedSpectrum, params: KernelPa
 }
 
 describe('the compiled cosine kernel', () => {
-  afterAll(() => setCosineKernel('wasm'));
+  afterAll(() => setSearchKernel('wasm'));
 
   it('keeps the segment in a shared WebAssembly memory', () => {
     const seg = SearchIndex.fromColumns(syntheticColumns(50, 1)).segment;
@@ -195,9 +195,9 @@ describe('the compiled cosine kernel', () => {
         for (let d = 0; d < seg.n; d++) allow[d] = [0, 1, 1, 2][Math.floor(r() * 4)];
       }
       const params: KernelParams = { k, rankBy, allow, penalty: 0.05, lo: qi % 5 === 0 ? 700 : 0, hi: qi % 7 === 0 ? 4100 : seg.n, generic: null };
-      setCosineKernel('js');
+      setSearchKernel('js');
       const js = searchSegment(seg, q, params);
-      setCosineKernel('wasm');
+      setSearchKernel('wasm');
       const wasm = searchSegment(seg, q, params);
       expect(asKeys(wasm)).toEqual(asKeys(js));
       expect(Array.from(wasm.scores)).toEqual(Array.from(js.scores));

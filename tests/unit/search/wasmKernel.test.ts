@@ -3,15 +3,15 @@ import { SearchIndex } from '../../../src/lib/search/SearchIndex';
 import { resolveSearchOptions } from '../../../src/lib/search/options';
 import { prepareQuery } from '../../../src/lib/search/prepare';
 import { bruteForceSegment, searchSegment, type KernelParams } from '../../../src/lib/search/searchSegment';
-import { Arena, cosineKernel, cosineModule, setCosineKernel, wasmScratch } from '../../../src/lib/search/wasmKernel';
+import { Arena, searchKernel, cosineModule, setSearchKernel, wasmScratch } from '../../../src/lib/search/wasmKernel';
 import { docPeaks, noisyReplicate, rng, syntheticColumns } from '../../../bench/synthetic';
 
 describe('wasmKernel', () => {
-  afterAll(() => setCosineKernel('wasm'));
+  afterAll(() => setSearchKernel('wasm'));
 
   it('compiles the kernel module here', () => {
     expect(cosineModule()).toBeInstanceOf(WebAssembly.Module);
-    expect(cosineKernel()).toBe('wasm');
+    expect(searchKernel()).toBe('wasm');
   });
 
   it('carves 8-byte-aligned arrays from one shared memory, after a first page left to the module, and refuses to overflow it', () => {
@@ -37,9 +37,9 @@ describe('wasmKernel', () => {
     for (let i = 0; i < 10; i++) {
       const q = prepareQuery(noisyReplicate(docPeaks(cols, Math.floor(r() * cols.count)), r, { noise: 0.2, dropBelow: 0.02, dropP: 0.3, background: 3 }), resolveSearchOptions({ rankBy: 'cosine', limit: 25 }));
       const params: KernelParams = { k: 25, rankBy: 'cosine', allow: seg.live, penalty: 0, lo: 0, hi: seg.n, generic: null };
-      setCosineKernel('js');
+      setSearchKernel('js');
       const js = searchSegment(seg, q, params);
-      setCosineKernel('wasm');
+      setSearchKernel('wasm');
       const fallback = searchSegment(stuck, q, params);
       expect(Array.from(fallback.docs)).toEqual(Array.from(js.docs));
       expect(Array.from(fallback.scores)).toEqual(Array.from(js.scores));
