@@ -301,7 +301,7 @@ export function searchSegment(seg: Segment, q: PreparedSpectrum, p: KernelParams
     for (let t = 0; t < T; t++) postings += tTo[t] - tFrom[t];
     const w = sc.wasm;
     if (w !== null && searchKernel() === 'wasm') {
-      // Compiled (onePass in wasm/cosine.ts, the same loops): terms in m/z order into its scratch.
+      // Compiled (onePass in wasm/kernels.ts, the same loops): terms in m/z order into its scratch.
       for (let t = 0; t < T; t++) {
         w.oQ[t] = tQ[t];
         w.oFrom[t] = tFrom[t];
@@ -452,7 +452,7 @@ function allowOffset(seg: Segment, p: KernelParams, w: WasmScratch, lo: number, 
 const ONE_PASS_MODE: Record<ScoreName, number> = { composite: 0, reverseCosine: 1, entropy: 2, cosine: -1 };
 
 /**
- * cosineMaxScore, compiled (wasm/cosine.ts is its line-by-line port): the
+ * cosineMaxScore, compiled (wasm/kernels.ts is its line-by-line port): the
  * query's terms in order and its dense weights go into this thread's scratch
  * in the segment's memory, the kernel runs, and its heap becomes `heap`.
  */

@@ -1,12 +1,12 @@
-// The compiled search kernels (wasm/cosine.ts) and the memory they work in.
+// The compiled search kernels (wasm/kernels.ts) and the memory they work in.
 //
 // A segment's arrays are carved from one shared WebAssembly.Memory (its
 // buffer is a SharedArrayBuffer, so workers still share them without copies),
 // and each thread that searches a segment grows that memory once for its own
 // scratch. Where WebAssembly or the memory is not available (or the segment
 // is too large for a 32-bit memory), segments use plain SharedArrayBuffers and
-// the JavaScript kernel, which returns the same hits.
-import { COSINE_WASM_BASE64 } from './cosineWasm.generated';
+// the JavaScript loops, which return the same hits.
+import { KERNELS_WASM_BASE64 } from './kernelsWasm.generated';
 import { MAX_LIMIT } from './options';
 
 const PAGE = 65536;
@@ -18,10 +18,10 @@ const SCRATCH_SLOTS = 10;
 let module: WebAssembly.Module | null | undefined;
 
 /** The compiled kernel module, or null where WebAssembly is not available. */
-export function cosineModule(): WebAssembly.Module | null {
+export function kernelModule(): WebAssembly.Module | null {
   if (module === undefined) {
     try {
-      module = new WebAssembly.Module(Buffer.from(COSINE_WASM_BASE64, 'base64'));
+      module = new WebAssembly.Module(Buffer.from(KERNELS_WASM_BASE64, 'base64'));
     } catch {
       module = null;
     }
@@ -56,7 +56,7 @@ export class Arena {
 
   /** An arena for `bytes` of arrays of a segment of n docs, or null (no WebAssembly, or too large). */
   static create(bytes: number, n: number, nBins: number): Arena | null {
-    if (cosineModule() === null) return null;
+    if (kernelModule() === null) return null;
     const pages = Math.ceil((PAGE + bytes + 8 * 32) / PAGE);
     const scratchPages = Math.ceil(scratchBytes(n, nBins) / PAGE);
     if (pages + scratchPages > MAX_PAGES) return null;
@@ -100,7 +100,7 @@ export interface WasmScratch {
 
 /** Grow the segment's memory by this thread's scratch and instantiate the kernel on it; null if that fails. */
 export function wasmScratch(memory: WebAssembly.Memory, n: number, nBins: number): WasmScratch | null {
-  const mod = cosineModule();
+  const mod = kernelModule();
   if (mod === null) return null;
   let base: number;
   const bytes = scratchBytes(n, nBins);
@@ -119,7 +119,7 @@ export function wasmScratch(memory: WebAssembly.Memory, n: number, nBins: number
   };
   const k = MAX_LIMIT;
   const header = new Uint32Array(buffer, base, 32);
-  // The kernel reads these offsets in this order (wasm/cosine.ts, the start of cosine()).
+  // The kernel reads these offsets in this order (wasm/kernels.ts, the start of cosine()).
   const ptrs: number[] = [];
   ptrs.push(take(Float32Array, 2 * n)[1]); // acc
   ptrs.push(take(Uint8Array, n)[1]); // seen

@@ -207,7 +207,7 @@ describe('the compiled cosine kernel', () => {
     }
   });
 
-  it('is what wasm/cosine.ts compiles to (scripts/build-wasm.mjs --check)', () => {
+  it('is what wasm/kernels.ts compiles to (scripts/build-wasm.mjs --check)', () => {
     expect(() => execFileSync(process.execPath, ['scripts/build-wasm.mjs', '--check'], { stdio: 'pipe' })).not.toThrow();
   }, 60_000);
 });

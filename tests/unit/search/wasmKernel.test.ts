@@ -3,14 +3,14 @@ import { SearchIndex } from '../../../src/lib/search/SearchIndex';
 import { resolveSearchOptions } from '../../../src/lib/search/options';
 import { prepareQuery } from '../../../src/lib/search/prepare';
 import { bruteForceSegment, searchSegment, type KernelParams } from '../../../src/lib/search/searchSegment';
-import { Arena, searchKernel, cosineModule, setSearchKernel, wasmScratch } from '../../../src/lib/search/wasmKernel';
+import { Arena, searchKernel, kernelModule, setSearchKernel, wasmScratch } from '../../../src/lib/search/wasmKernel';
 import { docPeaks, noisyReplicate, rng, syntheticColumns } from '../../../bench/synthetic';
 
 describe('wasmKernel', () => {
   afterAll(() => setSearchKernel('wasm'));
 
   it('compiles the kernel module here', () => {
-    expect(cosineModule()).toBeInstanceOf(WebAssembly.Module);
+    expect(kernelModule()).toBeInstanceOf(WebAssembly.Module);
     expect(searchKernel()).toBe('wasm');
   });
 

@@ -1,14 +1,16 @@
-// The cosine MaxScore kernel in AssemblyScript, compiled to WebAssembly by
-// scripts/build-wasm.mjs into src/lib/search/cosineWasm.generated.ts.
+// The search kernels in AssemblyScript, compiled to WebAssembly by
+// scripts/build-wasm.mjs into src/lib/search/kernelsWasm.generated.ts:
+// `cosine`, the cosine MaxScore search, and `onePass`, the one-pass scores
+// (composite, reverse cosine, entropy) at the end of this file.
 //
-// It is a line-by-line port of cosineMaxScore in src/lib/search/searchSegment.ts
-// (read that first: the algorithm, its bounds and why each step is exact are
-// explained there). The same operations in the same order on the same
-// float32/float64 values, so both kernels read the same postings, rescore the
-// same docs and return the same hits to the last bit; tests/search/
-// wasm-kernel.test.ts holds them to that. Compiled code runs the posting loops
-// about 3.5 times faster than the JavaScript (1.1 against 4.2 ns a posting,
-// measured here), the reason this file exists.
+// `cosine` is a line-by-line port of cosineMaxScore in
+// src/lib/search/searchSegment.ts (read that first: the algorithm, its bounds
+// and why each step is exact are explained there). The same operations in the
+// same order on the same float32/float64 values, so both read the same
+// postings, rescore the same docs and return the same hits to the last bit;
+// tests/unit/search/searchSegment.test.ts holds them to that. Compiled code
+// runs the posting loops about 3.5 times faster than the JavaScript (1.1
+// against 4.2 ns a posting, measured here), the reason this file exists.
 //
 // Memory: the segment's arrays and this thread's scratch live in one shared
 // WebAssembly.Memory (src/lib/search/wasmKernel.ts lays them out); every
