@@ -40,18 +40,64 @@ export function setSearchKernel(k: SearchKernel): void {
   kernel = k;
 }
 
-/** Bytes of one thread's scratch for a segment of n docs and nBins bins. */
-function scratchBytes(n: number, nBins: number): number {
+type ArrayCtor<T> = { new (buffer: ArrayBufferLike, byteOffset: number, length: number): T; BYTES_PER_ELEMENT: number };
+
+/** Bytes an array takes in an arena: 8-byte aligned, at least one element. */
+const aligned = (Ctor: ArrayCtor<unknown>, length: number) => (Math.max(1, length) * Ctor.BYTES_PER_ELEMENT + 7) & ~7;
+
+/**
+ * One thread's scratch for a segment of n docs and nBins bins, in the order
+ * of the header the kernels read (wasm/kernels.ts: the start of cosine() and
+ * of onePass(); header slot i holds entry i's byte offset).
+ */
+function scratchLayout(n: number, nBins: number) {
   const k = MAX_LIMIT;
-  return 128 + 4 * 2 * n + n + 4 * n + 4 * (n + 1) + 8 * n + 4 * n + 8 * nBins + 4 * 257 + 8 * 1025 + 2 * (12 * k) + nBins * 16 + 2 * 8 * (nBins + 1) + 32 + n + 32 * n + 4 * nBins + 8 * nBins + 16 * 24;
+  return {
+    acc: [Float32Array, 2 * n],
+    seen: [Uint8Array, n],
+    touched: [Int32Array, n],
+    candD: [Int32Array, n + 1],
+    candV: [Float64Array, n],
+    candS: [Int32Array, n],
+    qDense: [Float64Array, nBins],
+    bucket: [Int32Array, 257],
+    hist: [Float64Array, 1025],
+    heapS: [Float64Array, k],
+    heapD: [Int32Array, k],
+    pickS: [Float64Array, k],
+    pickD: [Int32Array, k],
+    oQ: [Float64Array, nBins],
+    oFrom: [Uint32Array, nBins],
+    oTo: [Uint32Array, nBins],
+    R: [Float64Array, nBins + 1],
+    Q: [Float64Array, nBins + 1],
+    out: [Float64Array, 4],
+    // (The kernels take the mask's offset as an argument; it has a slot all the same.)
+    allow: [Uint8Array, n],
+    st: [Float64Array, 4 * n],
+    cur: [Uint32Array, nBins],
+    oA: [Float64Array, nBins],
+  } as const;
 }
 
-/** Bump allocator over a segment's shared memory (8-byte aligned; the first page is left to the module). */
+const HEADER_BYTES = 128;
+
+/** Bytes of one thread's scratch (header and arrays). */
+function scratchBytes(n: number, nBins: number): number {
+  let bytes = HEADER_BYTES;
+  for (const [Ctor, length] of Object.values(scratchLayout(n, nBins))) bytes += aligned(Ctor, length);
+  return bytes;
+}
+
+/** Bump allocator over a region of a shared memory (8-byte aligned). A segment's arena leaves the first page to the module. */
 export class Arena {
   readonly memory: WebAssembly.Memory;
-  private at = PAGE;
-  private constructor(memory: WebAssembly.Memory) {
+  private at: number;
+  private readonly end: number;
+  constructor(memory: WebAssembly.Memory, start: number, end: number) {
     this.memory = memory;
+    this.at = start;
+    this.end = end;
   }
 
   /** An arena for `bytes` of arrays of a segment of n docs, or null (no WebAssembly, or too large). */
@@ -62,16 +108,16 @@ export class Arena {
     if (pages + scratchPages > MAX_PAGES) return null;
     try {
       const memory = new WebAssembly.Memory({ initial: pages, maximum: Math.min(MAX_PAGES, pages + SCRATCH_SLOTS * scratchPages), shared: true });
-      return new Arena(memory);
+      return new Arena(memory, PAGE, pages * PAGE);
     } catch {
       return null;
     }
   }
 
-  take<T>(Ctor: { new (buffer: ArrayBufferLike, byteOffset: number, length: number): T; BYTES_PER_ELEMENT: number }, length: number): T {
+  take<T>(Ctor: ArrayCtor<T>, length: number): T {
     const at = this.at;
-    this.at = (at + Math.max(1, length) * Ctor.BYTES_PER_ELEMENT + 7) & ~7;
-    if (this.at > this.memory.buffer.byteLength) throw new RangeError('segment arena overflow');
+    this.at = at + aligned(Ctor, length);
+    if (this.at > this.end) throw new RangeError('arena overflow');
     return new Ctor(this.memory.buffer, at, length);
   }
 }
@@ -110,48 +156,17 @@ export function wasmScratch(memory: WebAssembly.Memory, n: number, nBins: number
     return null;
   }
   const instance = new WebAssembly.Instance(mod, { env: { memory } });
-  const buffer = memory.buffer;
-  let at = base + 128;
-  const take = <T>(Ctor: { new (buffer: ArrayBufferLike, byteOffset: number, length: number): T; BYTES_PER_ELEMENT: number }, length: number): [T, number] => {
-    const p = at;
-    at = (at + Math.max(1, length) * Ctor.BYTES_PER_ELEMENT + 7) & ~7;
-    return [new Ctor(buffer, p, length), p];
-  };
-  const k = MAX_LIMIT;
-  const header = new Uint32Array(buffer, base, 32);
-  // The kernel reads these offsets in this order (wasm/kernels.ts, the start of cosine()).
-  const ptrs: number[] = [];
-  ptrs.push(take(Float32Array, 2 * n)[1]); // acc
-  ptrs.push(take(Uint8Array, n)[1]); // seen
-  const [touched, touchedP] = take(Int32Array, n);
-  ptrs.push(touchedP);
-  ptrs.push(take(Int32Array, n + 1)[1]); // candD
-  ptrs.push(take(Float64Array, n)[1]); // candV
-  ptrs.push(take(Int32Array, n)[1]); // candS
-  const [qDense, qDenseP] = take(Float64Array, nBins);
-  ptrs.push(qDenseP);
-  ptrs.push(take(Int32Array, 257)[1]); // bucket
-  ptrs.push(take(Float64Array, 1025)[1]); // hist
-  const [heapS, heapSP] = take(Float64Array, k);
-  const [heapD, heapDP] = take(Int32Array, k);
-  ptrs.push(heapSP, heapDP);
-  ptrs.push(take(Float64Array, k)[1], take(Int32Array, k)[1]); // pick heap
-  const [oQ, oQP] = take(Float64Array, nBins);
-  const [oFrom, oFromP] = take(Uint32Array, nBins);
-  const [oTo, oToP] = take(Uint32Array, nBins);
-  const [R, RP] = take(Float64Array, nBins + 1);
-  const [Q, QP] = take(Float64Array, nBins + 1);
-  const [out, outP] = take(Float64Array, 4);
-  ptrs.push(oQP, oFromP, oToP, RP, QP, outP);
-  const [allow] = take(Uint8Array, n);
-  // The one-pass scores (onePass): header slots 20, 21, 22 (slot 19 is unused).
-  ptrs.push(0);
-  const [st, stP] = take(Float64Array, 4 * n);
-  ptrs.push(stP, take(Uint32Array, nBins)[1]); // per-doc state, a cursor per bin
-  const [oA, oAP] = take(Float64Array, nBins);
-  ptrs.push(oAP);
-  if (at > base + Math.ceil(bytes / PAGE) * PAGE) throw new RangeError('wasm scratch overflow');
-  header.set(ptrs);
+  const region = new Arena(memory, base + HEADER_BYTES, base + Math.ceil(bytes / PAGE) * PAGE);
+  const layout = scratchLayout(n, nBins);
+  const views = {} as { [K in keyof typeof layout]: InstanceType<(typeof layout)[K][0]> };
+  const offsets: number[] = [];
+  for (const [name, [Ctor, length]] of Object.entries(layout) as [keyof typeof layout, (typeof layout)[keyof typeof layout]][]) {
+    const view = region.take(Ctor as ArrayCtor<ArrayBufferView>, length);
+    (views as Record<string, ArrayBufferView>)[name] = view;
+    offsets.push(view.byteOffset);
+  }
+  new Uint32Array(memory.buffer, base, HEADER_BYTES / 4).set(offsets);
+  const { qDense, oQ, oFrom, oTo, R, Q, heapS, heapD, out, allow, st, touched, oA } = views;
   return {
     cosine: instance.exports.cosine as (...args: number[]) => void,
     onePass: instance.exports.onePass as (...args: number[]) => number,
