@@ -1,5 +1,10 @@
-// Shared helpers for the search tests: a seeded PRNG and random libraries.
+// Shared helpers for the search tests: a seeded PRNG, random libraries, the two kernels compared.
+import { expect } from 'vitest';
+import type { PreparedSpectrum } from '../../../src/lib/search/prepare';
+import { searchSegment, type KernelParams } from '../../../src/lib/search/searchSegment';
+import type { Segment } from '../../../src/lib/search/segment';
 import type { LibraryEntry, Peak, SearchFilters, SpectrumStatus } from '../../../src/lib/search/types';
+import { setSearchKernel } from '../../../src/lib/search/wasmKernel';
 
 // The benchmark's seeded PRNG (mulberry32), one copy for both.
 export { rng } from '../../../bench/synthetic';
@@ -65,3 +70,20 @@ export const FILTER_CASES: (SearchFilters | undefined)[] = [
   { ri: { value: 1200, window: 150, phase: 'non-polar' } },
   { ri: { value: 1200, window: 150, phase: 'non-polar', penalty: 0.2 } },
 ];
+
+/**
+ * Runs the JavaScript kernels on `seg` and the compiled ones on `compiledSeg`
+ * (the same segment unless a test swaps its memory) and expects the same hits
+ * to the bit, postings read and docs rescored. Returns the compiled result.
+ */
+export function sameFromBothKernels(seg: Segment, q: PreparedSpectrum, params: KernelParams, compiledSeg: Segment = seg) {
+  setSearchKernel('js');
+  const js = searchSegment(seg, q, params);
+  setSearchKernel('wasm');
+  const wasm = searchSegment(compiledSeg, q, params);
+  expect(Array.from(wasm.docs)).toEqual(Array.from(js.docs));
+  expect(Array.from(wasm.rank)).toEqual(Array.from(js.rank));
+  expect(Array.from(wasm.scores)).toEqual(Array.from(js.scores));
+  expect([wasm.postings, wasm.evaluated]).toEqual([js.postings, js.evaluated]);
+  return wasm;
+}

@@ -2,14 +2,13 @@ import { execFileSync } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SearchIndex } from '../../../src/lib/search/SearchIndex';
 import { resolveSearchOptions } from '../../../src/lib/search/options';
-import { prepareQuery, type PreparedSpectrum } from '../../../src/lib/search/prepare';
-import type { Segment } from '../../../src/lib/search/segment';
+import { prepareQuery } from '../../../src/lib/search/prepare';
 import { bruteForceSegment, searchSegment, type KernelParams } from '../../../src/lib/search/searchSegment';
 import { SCORE_NAMES } from '../../../src/lib/search/types';
 import { entropyWeightsInto } from '../../../src/lib/search/entropyWeights';
 import { scoreMerged } from '../../../src/lib/search/scorePrepared';
 import { setSearchKernel, type SearchKernel } from '../../../src/lib/search/wasmKernel';
-import { noisyQuery, randomLibrary, rng } from './helpers';
+import { noisyQuery, randomLibrary, rng, sameFromBothKernels } from './helpers';
 import { docPeaks, noisyReplicate, syntheticColumns } from '../../../bench/synthetic';
 
 const asKeys = (r: { docs: Int32Array; rank: Float64Array }) => Array.from(r.docs, (d, i) => `${d}:${r.rank[i]}`);
@@ -109,19 +108,6 @@ function skewedLibrary(count: number, seed: number) {
     }
   }
   return cols;
-}
-
-/** Runs the JavaScript and the compiled cosine kernel and expects the same hits to the bit, postings read and docs rescored. */
-function sameFromBothKernels(seg: Segment, q: PreparedSpectrum, params: KernelParams) {
-  setSearchKernel('js');
-  const js = searchSegment(seg, q, params);
-  setSearchKernel('wasm');
-  const wasm = searchSegment(seg, q, params);
-  expect(Array.from(wasm.docs)).toEqual(Array.from(js.docs));
-  expect(Array.from(wasm.rank)).toEqual(Array.from(js.rank));
-  expect(Array.from(wasm.scores)).toEqual(Array.from(js.scores));
-  expect([wasm.postings, wasm.evaluated]).toEqual([js.postings, js.evaluated]);
-  return wasm;
 }
 
 describe('the compiled cosine kernel', () => {

@@ -2,9 +2,10 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { SearchIndex } from '../../../src/lib/search/SearchIndex';
 import { resolveSearchOptions } from '../../../src/lib/search/options';
 import { prepareQuery } from '../../../src/lib/search/prepare';
-import { bruteForceSegment, searchSegment, type KernelParams } from '../../../src/lib/search/searchSegment';
+import { bruteForceSegment, type KernelParams } from '../../../src/lib/search/searchSegment';
 import { Arena, searchKernel, kernelModule, setSearchKernel, wasmScratch } from '../../../src/lib/search/wasmKernel';
 import { docPeaks, noisyReplicate, rng, syntheticColumns } from '../../../bench/synthetic';
+import { sameFromBothKernels } from './helpers';
 
 describe('wasmKernel', () => {
   afterAll(() => setSearchKernel('wasm'));
@@ -37,13 +38,7 @@ describe('wasmKernel', () => {
     for (let i = 0; i < 10; i++) {
       const q = prepareQuery(noisyReplicate(docPeaks(cols, Math.floor(r() * cols.count)), r, { noise: 0.2, dropBelow: 0.02, dropP: 0.3, background: 3 }), resolveSearchOptions({ rankBy: 'cosine', limit: 25 }));
       const params: KernelParams = { k: 25, rankBy: 'cosine', allow: seg.live, penalty: 0, lo: 0, hi: seg.n, generic: null };
-      setSearchKernel('js');
-      const js = searchSegment(seg, q, params);
-      setSearchKernel('wasm');
-      const fallback = searchSegment(stuck, q, params);
-      expect(Array.from(fallback.docs)).toEqual(Array.from(js.docs));
-      expect(Array.from(fallback.scores)).toEqual(Array.from(js.scores));
-      expect([fallback.postings, fallback.evaluated]).toEqual([js.postings, js.evaluated]);
+      const fallback = sameFromBothKernels(seg, q, params, stuck);
       expect(Array.from(fallback.docs)).toEqual(Array.from(bruteForceSegment(seg, q, params).docs));
     }
   });
