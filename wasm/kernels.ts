@@ -145,22 +145,34 @@ function settle(d: i32, dot: f64): void {
   }
 }
 
-// Docs to rescore are queued and scored four at a time, their loops
-// interleaved: each doc's peaks are a fresh read from memory, and four
-// streams at once keep four reads in flight instead of one.
+// Docs to rescore are queued and scored eight at a time, their loops
+// interleaved: each doc's peaks are a fresh read from memory (the rescoring
+// waits on memory, not on arithmetic), and eight streams at once keep eight
+// reads in flight instead of one (four: 0.37 us a doc, eight: 0.29, twelve
+// and sixteen no better, measured here). Each doc's products are still added
+// in its own m/z order. The queue is in globals, not memory: every thread's
+// instance shares the memory.
 let g0: i32 = 0;
 let g1: i32 = 0;
 let g2: i32 = 0;
 let g3: i32 = 0;
+let g4: i32 = 0;
+let g5: i32 = 0;
+let g6: i32 = 0;
+let g7: i32 = 0;
 let gN: i32 = 0;
 
 function queue(d: i32): void {
   if (gN == 0) g0 = d;
   else if (gN == 1) g1 = d;
   else if (gN == 2) g2 = d;
-  else g3 = d;
+  else if (gN == 3) g3 = d;
+  else if (gN == 4) g4 = d;
+  else if (gN == 5) g5 = d;
+  else if (gN == 6) g6 = d;
+  else g7 = d;
   gN++;
-  if (gN == 4) flush();
+  if (gN == 8) flush();
 }
 
 function flush(): void {
@@ -168,39 +180,79 @@ function flush(): void {
   else flushAs<u16>();
 }
 
+/** The queued docs' doc number by queue position (the globals above). */
+@inline function queued(i: i32): i32 {
+  if (i == 0) return g0;
+  if (i == 1) return g1;
+  if (i == 2) return g2;
+  if (i == 3) return g3;
+  if (i == 4) return g4;
+  if (i == 5) return g5;
+  if (i == 6) return g6;
+  return g7;
+}
+
 @inline function flushAs<B>(): void {
-  if (gN == 4) {
+  if (gN == 8) {
     const s0 = load<u32>(gDocStart + (<usize>g0 << 2));
     const s1 = load<u32>(gDocStart + (<usize>g1 << 2));
     const s2 = load<u32>(gDocStart + (<usize>g2 << 2));
     const s3 = load<u32>(gDocStart + (<usize>g3 << 2));
+    const s4 = load<u32>(gDocStart + (<usize>g4 << 2));
+    const s5 = load<u32>(gDocStart + (<usize>g5 << 2));
+    const s6 = load<u32>(gDocStart + (<usize>g6 << 2));
+    const s7 = load<u32>(gDocStart + (<usize>g7 << 2));
     const e0 = load<u32>(gDocStart + ((<usize>g0 + 1) << 2));
     const e1 = load<u32>(gDocStart + ((<usize>g1 + 1) << 2));
     const e2 = load<u32>(gDocStart + ((<usize>g2 + 1) << 2));
     const e3 = load<u32>(gDocStart + ((<usize>g3 + 1) << 2));
-    const len = min<u32>(min<u32>(e0 - s0, e1 - s1), min<u32>(e2 - s2, e3 - s3));
+    const e4 = load<u32>(gDocStart + ((<usize>g4 + 1) << 2));
+    const e5 = load<u32>(gDocStart + ((<usize>g5 + 1) << 2));
+    const e6 = load<u32>(gDocStart + ((<usize>g6 + 1) << 2));
+    const e7 = load<u32>(gDocStart + ((<usize>g7 + 1) << 2));
+    const len = min<u32>(
+      min<u32>(min<u32>(e0 - s0, e1 - s1), min<u32>(e2 - s2, e3 - s3)),
+      min<u32>(min<u32>(e4 - s4, e5 - s5), min<u32>(e6 - s6, e7 - s7)),
+    );
     let x0: f64 = 0;
     let x1: f64 = 0;
     let x2: f64 = 0;
     let x3: f64 = 0;
+    let x4: f64 = 0;
+    let x5: f64 = 0;
+    let x6: f64 = 0;
+    let x7: f64 = 0;
     for (let i: u32 = 0; i < len; i++) {
       x0 += termAt<B>(s0 + i);
       x1 += termAt<B>(s1 + i);
       x2 += termAt<B>(s2 + i);
       x3 += termAt<B>(s3 + i);
+      x4 += termAt<B>(s4 + i);
+      x5 += termAt<B>(s5 + i);
+      x6 += termAt<B>(s6 + i);
+      x7 += termAt<B>(s7 + i);
     }
     for (let j = s0 + len; j < e0; j++) x0 += termAt<B>(j);
     for (let j = s1 + len; j < e1; j++) x1 += termAt<B>(j);
     for (let j = s2 + len; j < e2; j++) x2 += termAt<B>(j);
     for (let j = s3 + len; j < e3; j++) x3 += termAt<B>(j);
+    for (let j = s4 + len; j < e4; j++) x4 += termAt<B>(j);
+    for (let j = s5 + len; j < e5; j++) x5 += termAt<B>(j);
+    for (let j = s6 + len; j < e6; j++) x6 += termAt<B>(j);
+    for (let j = s7 + len; j < e7; j++) x7 += termAt<B>(j);
     settle(g0, x0);
     settle(g1, x1);
     settle(g2, x2);
     settle(g3, x3);
+    settle(g4, x4);
+    settle(g5, x5);
+    settle(g6, x6);
+    settle(g7, x7);
   } else {
-    if (gN > 0) settle(g0, dotOf<B>(g0));
-    if (gN > 1) settle(g1, dotOf<B>(g1));
-    if (gN > 2) settle(g2, dotOf<B>(g2));
+    for (let i = 0; i < gN; i++) {
+      const d = queued(i);
+      settle(d, dotOf<B>(d));
+    }
   }
   gN = 0;
 }
@@ -449,10 +501,8 @@ export function cosine(
 
   // Clear the per-doc state for the next search.
   if (nTouched > quarter) {
-    for (let d = lo; d < hi; d++) {
-      store<u64>(acc + (<usize>d << 3), 0);
-      store<u8>(seen + <usize>d, 0);
-    }
+    memory.fill(acc + (<usize>lo << 3), 0, <usize>(hi - lo) << 3);
+    memory.fill(seen + <usize>lo, 0, <usize>(hi - lo));
   } else {
     for (let t = 0; t < nTouched; t++) {
       const d = load<i32>(touched + (<usize>t << 2));

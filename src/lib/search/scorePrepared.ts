@@ -20,6 +20,9 @@ export const SCORE_SLOT: Record<ScoreName, number> = { cosine: 0, reverseCosine:
  * would hold it (the same bits as entropyWeightsInto into a Float32Array,
  * without weighting every peak). With `qIdx` (the query's index by bin, -1
  * elsewhere, covering every library bin) shared peaks are found by lookup.
+ * With `qEH` (each query peak's qE * ln qE, 0 where qE is 0: queryEntropyTerms)
+ * that term is read instead of computed: the same value, one logarithm fewer
+ * a shared peak.
  */
 export function scoreMerged(
   qBins: Int32Array,
@@ -38,6 +41,7 @@ export function scoreMerged(
   at = 0,
   lRel: Float64Array | null = null,
   qIdx: Int32Array | null = null,
+  qEH: Float64Array | null = null,
 ): void {
   let i = 0;
   let dot = 0;
@@ -76,7 +80,7 @@ export function scoreMerged(
     if (withEntropy) {
       const ea = qE[i];
       const eb = lRel === null ? lE[j] : Math.fround(entropyWeightAt(lE[j], lRel[0], lRel[1], lRel[2]));
-      if (ea > 0 && eb > 0) ent += (ea + eb) * Math.log(ea + eb) - ea * Math.log(ea) - eb * Math.log(eb);
+      if (ea > 0 && eb > 0) ent += (ea + eb) * Math.log(ea + eb) - (qEH === null ? ea * Math.log(ea) : qEH[i]) - eb * Math.log(eb);
     }
   }
   if (nShared === 0 || !(qNorm > 0) || !(lNorm > 0)) {
@@ -93,4 +97,12 @@ export function scoreMerged(
   // Stein & Scott 1994 composite; F_R averaged over the N_UL - 1 adjacent pairs (see compositeScore).
   out[at + 2] = nShared < 2 ? fD : Math.min(1, (qN * fD + nShared * (ratioSum / (nShared - 1))) / (qN + nShared));
   out[at + 3] = withEntropy ? Math.min(1, Math.max(0, ent / LN4)) : 0;
+}
+
+/** Each query peak's qE * ln qE (0 where qE is not positive) into `out`, for scoreMerged's qEH. */
+export function queryEntropyTerms(qE: ArrayLike<number>, n: number, out: Float64Array): void {
+  for (let i = 0; i < n; i++) {
+    const ea = qE[i];
+    out[i] = ea > 0 ? ea * Math.log(ea) : 0;
+  }
 }

@@ -1,5 +1,5 @@
 import { stageInto, type PreparedSpectrum } from './prepare';
-import { scoreMerged, SCORE_SLOT } from './scorePrepared';
+import { queryEntropyTerms, scoreMerged, SCORE_SLOT } from './scorePrepared';
 import type { Segment } from './segment';
 import { TopK } from './topK';
 import type { PeakWeights, ScoreName } from './types';
@@ -18,6 +18,8 @@ const EPS = 1e-5;
 const CEPS = 2e-5;
 /** Work of one exact rescoring, in postings read (a merge over ~2 x 80 peaks). */
 const EVAL_COST = 40;
+/** Docs rescored together, their loops interleaved (the compiled kernel's flush holds the same number). */
+const GROUP = 8;
 /** Docs per block of the one-pass modes (32 bytes of state each: 1 MiB, cache-sized). */
 const BLOCK = 32768;
 
@@ -84,6 +86,8 @@ interface Scratch {
   qIdx: Int32Array;
   /** A doc's entropyParams [sum, pow, sumW], passed to scoreMerged. */
   eParams: Float64Array;
+  /** The query's entropy terms qE * ln qE by peak (set by setQuery), passed to scoreMerged. */
+  qEH: Float64Array;
   /** The compiled kernel's state for this segment in this thread (null: use the JavaScript kernel). */
   wasm: WasmScratch | null;
 }
@@ -106,6 +110,7 @@ function scratchFor(seg: Segment): Scratch {
       gE: new Float64Array(seg.maxDocPeaks),
       qIdx: new Int32Array(seg.nBins).fill(-1),
       eParams: new Float64Array(3),
+      qEH: new Float64Array(64),
       wasm,
     };
     scratchCache.set(seg.id, s);
@@ -134,6 +139,8 @@ function cosineScratch(seg: Segment, sc: Scratch): CosineScratch {
 function setQuery(sc: Scratch, q: PreparedSpectrum): void {
   const qIdx = sc.qIdx;
   for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < qIdx.length) qIdx[q.bins[i]] = i;
+  if (sc.qEH.length < q.n) sc.qEH = new Float64Array(Math.max(q.n, 2 * sc.qEH.length));
+  queryEntropyTerms(q.e, q.n, sc.qEH);
 }
 
 function clearQuery(sc: Scratch, q: PreparedSpectrum): void {
@@ -164,14 +171,14 @@ function evaluate(seg: Segment, q: PreparedSpectrum, d: number, generic: Generic
       ep[0] = seg.eSum[d];
       ep[1] = seg.ePow[d];
       ep[2] = seg.eSumW[d];
-      scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fRel, s, e, seg.docNorm[d], true, out, at, ep, sc.qIdx);
+      scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fRel, s, e, seg.docNorm[d], true, out, at, ep, sc.qIdx, sc.qEH);
     } else {
       // No entropy: the forward arrays in place (lE is not read).
       scoreMerged(q.bins, q.w, q.e, q.n, q.norm, seg.fBin, seg.fW, seg.fW, s, e, seg.docNorm[d], false, out, at, null, sc.qIdx);
     }
   } else {
     const g = stageInto(seg.fBin, seg.fRel, s, e, generic.tolerance, generic.weights, generic.noiseFloor, generic.lowMassCutoff, generic.excludeBins, sc.gBins, sc.gW, sc.gE);
-    scoreMerged(q.bins, q.w, q.e, q.n, q.norm, sc.gBins, sc.gW, sc.gE, 0, g.n, g.norm, withEntropy, out, at, null, sc.qIdx);
+    scoreMerged(q.bins, q.w, q.e, q.n, q.norm, sc.gBins, sc.gW, sc.gE, 0, g.n, g.norm, withEntropy, out, at, null, sc.qIdx, sc.qEH);
   }
 }
 
@@ -537,48 +544,73 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
       heap.push(allow[d] === 2 ? Math.max(0, cos - penalty) : cos, d);
     }
   };
-  // Docs to rescore are queued and scored four at a time, their loops
-  // interleaved: each doc's peaks are a fresh read from memory, and four
-  // streams at once keep four reads in flight instead of one. (Each doc's
-  // products are still added in its own m/z order.)
-  const group = [0, 0, 0, 0];
+  // Docs to rescore are queued and scored GROUP at a time, their loops
+  // interleaved: each doc's peaks are a fresh read from memory, and several
+  // streams at once keep several reads in flight instead of one. (Each doc's
+  // products are still added in its own m/z order. The compiled kernel
+  // queues the same way, so both rescore the same docs.)
+  const group = new Int32Array(GROUP);
   let nGroup = 0;
   const flush = () => {
-    if (nGroup === 4) {
-      const [g0, g1, g2, g3] = group;
+    if (nGroup === GROUP) {
+      const [g0, g1, g2, g3, g4, g5, g6, g7] = group;
       const s0 = docStart[g0];
       const s1 = docStart[g1];
       const s2 = docStart[g2];
       const s3 = docStart[g3];
+      const s4 = docStart[g4];
+      const s5 = docStart[g5];
+      const s6 = docStart[g6];
+      const s7 = docStart[g7];
       const e0 = docStart[g0 + 1];
       const e1 = docStart[g1 + 1];
       const e2 = docStart[g2 + 1];
       const e3 = docStart[g3 + 1];
-      const len = Math.min(e0 - s0, e1 - s1, e2 - s2, e3 - s3);
+      const e4 = docStart[g4 + 1];
+      const e5 = docStart[g5 + 1];
+      const e6 = docStart[g6 + 1];
+      const e7 = docStart[g7 + 1];
+      const len = Math.min(e0 - s0, e1 - s1, e2 - s2, e3 - s3, e4 - s4, e5 - s5, e6 - s6, e7 - s7);
       let x0 = 0;
       let x1 = 0;
       let x2 = 0;
       let x3 = 0;
+      let x4 = 0;
+      let x5 = 0;
+      let x6 = 0;
+      let x7 = 0;
       for (let i = 0; i < len; i++) {
         x0 += qDense[fBin[s0 + i]] * fW[s0 + i];
         x1 += qDense[fBin[s1 + i]] * fW[s1 + i];
         x2 += qDense[fBin[s2 + i]] * fW[s2 + i];
         x3 += qDense[fBin[s3 + i]] * fW[s3 + i];
+        x4 += qDense[fBin[s4 + i]] * fW[s4 + i];
+        x5 += qDense[fBin[s5 + i]] * fW[s5 + i];
+        x6 += qDense[fBin[s6 + i]] * fW[s6 + i];
+        x7 += qDense[fBin[s7 + i]] * fW[s7 + i];
       }
       for (let j = s0 + len; j < e0; j++) x0 += qDense[fBin[j]] * fW[j];
       for (let j = s1 + len; j < e1; j++) x1 += qDense[fBin[j]] * fW[j];
       for (let j = s2 + len; j < e2; j++) x2 += qDense[fBin[j]] * fW[j];
       for (let j = s3 + len; j < e3; j++) x3 += qDense[fBin[j]] * fW[j];
+      for (let j = s4 + len; j < e4; j++) x4 += qDense[fBin[j]] * fW[j];
+      for (let j = s5 + len; j < e5; j++) x5 += qDense[fBin[j]] * fW[j];
+      for (let j = s6 + len; j < e6; j++) x6 += qDense[fBin[j]] * fW[j];
+      for (let j = s7 + len; j < e7; j++) x7 += qDense[fBin[j]] * fW[j];
       settle(g0, x0);
       settle(g1, x1);
       settle(g2, x2);
       settle(g3, x3);
+      settle(g4, x4);
+      settle(g5, x5);
+      settle(g6, x6);
+      settle(g7, x7);
     } else for (let i = 0; i < nGroup; i++) settle(group[i], dotOf(group[i]));
     nGroup = 0;
   };
   const queue = (d: number) => {
     group[nGroup++] = d;
-    if (nGroup === 4) flush();
+    if (nGroup === GROUP) flush();
   };
   // Seen docs are visited through the touched list, or by a sequential sweep
   // of the state once most docs have been seen (cheaper than random reads).
