@@ -614,3 +614,97 @@ export function onePass(
   }
   return nTouched;
 }
+
+// The four scores of the hits: scoreMerged of src/lib/search/scorePrepared.ts
+// (its stored-weights path: shared peaks found through the query's index by
+// bin, entropy weights from each doc's entropyParams, the query's qE ln qE
+// read), the same operations in the same order, so every score is the
+// brute-force reference's to the last bit. The logarithm and the power are
+// the JavaScript engine's own Math.log and Math.pow, imported: the engine
+// calls its own routines for them, the ones its JavaScript uses.
+@external('env', 'log') declare function jsLog(x: f64): f64;
+@external('env', 'pow') declare function jsPow(x: f64, y: f64): f64;
+
+/**
+ * Scores the `nHits` docs listed at hitD (header slot 23) into hitOut (slot
+ * 24): [cosine, reverseCosine, composite, entropy] per hit. The query is at
+ * slots 25..28: its peak index by bin (-1 elsewhere), and by peak its
+ * weight, entropy intensity and qE ln qE. qN is the query's peak count.
+ */
+export function scoreHits(
+  S: usize,
+  nHits: i32,
+  docStart: usize,
+  fBin: usize,
+  wide: i32,
+  fW: usize,
+  fRel: usize,
+  docNorm: usize,
+  eSum: usize,
+  ePow: usize,
+  eSumW: usize,
+  qN: f64,
+  qNorm: f64,
+  ln4: f64,
+): void {
+  const hitD: usize = load<u32>(S, 92);
+  const hitOut: usize = load<u32>(S, 96);
+  const qIdx: usize = load<u32>(S, 100);
+  const qW: usize = load<u32>(S, 104);
+  const qE: usize = load<u32>(S, 108);
+  const qEH: usize = load<u32>(S, 112);
+  for (let h = 0; h < nHits; h++) {
+    const d = load<i32>(hitD + (<usize>h << 2));
+    const o = hitOut + (<usize>h << 5);
+    const start = load<u32>(docStart + (<usize>d << 2));
+    const end = load<u32>(docStart + ((<usize>d + 1) << 2));
+    const sum = load<f64>(eSum + (<usize>d << 3));
+    const pw = load<f64>(ePow + (<usize>d << 3));
+    const sumW = load<f64>(eSumW + (<usize>d << 3));
+    let dot: f64 = 0;
+    let qShared: f64 = 0;
+    let nShared: f64 = 0;
+    let ratioSum: f64 = 0;
+    let prevQ: f64 = 0;
+    let prevL: f64 = 0;
+    let ent: f64 = 0;
+    for (let j = start; j < end; j++) {
+      const b: usize = wide ? <usize>load<i32>(fBin + (<usize>j << 2)) : <usize>load<u16>(fBin + (<usize>j << 1));
+      const i = load<i32>(qIdx + (b << 2));
+      if (i < 0) continue;
+      const x = load<f64>(qW + (<usize>i << 3));
+      const y = f32at(fW + (<usize>j << 2));
+      dot += x * y;
+      qShared += x * x;
+      if (nShared > 0) {
+        const r = (y / prevL) * (prevQ / x);
+        ratioSum += r <= 1 ? r : 1 / r;
+      }
+      prevQ = x;
+      prevL = y;
+      nShared++;
+      const ea = load<f64>(qE + (<usize>i << 3));
+      // entropyWeightAt, rounded to float32 as a stored weight would be.
+      let eb: f64 = 0;
+      if (sum > 0) {
+        const p = f32at(fRel + (<usize>j << 2)) / sum;
+        eb = <f64><f32>(pw > 0 ? jsPow(p, pw) / sumW : p);
+      }
+      if (ea > 0 && eb > 0) ent += (ea + eb) * jsLog(ea + eb) - load<f64>(qEH + (<usize>i << 3)) - eb * jsLog(eb);
+    }
+    const lNorm = load<f64>(docNorm + (<usize>d << 3));
+    if (nShared == 0 || !(qNorm > 0) || !(lNorm > 0)) {
+      store<f64>(o, 0);
+      store<f64>(o, 0, 8);
+      store<f64>(o, 0, 16);
+      store<f64>(o, 0, 24);
+      continue;
+    }
+    const cos = min<f64>(1, dot / (qNorm * lNorm));
+    store<f64>(o, cos);
+    store<f64>(o, qShared > 0 ? min<f64>(1, dot / (Math.sqrt(qShared) * lNorm)) : 0, 8);
+    const fD = cos * cos;
+    store<f64>(o, nShared < 2 ? fD : min<f64>(1, (qN * fD + nShared * (ratioSum / (nShared - 1))) / (qN + nShared)), 16);
+    store<f64>(o, min<f64>(1, max<f64>(0, ent / ln4)), 24);
+  }
+}

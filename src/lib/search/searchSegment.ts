@@ -182,17 +182,44 @@ function evaluate(seg: Segment, q: PreparedSpectrum, d: number, generic: Generic
   }
 }
 
-function finish(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: Scratch, heap: TopK, postings: number, evaluated: number): KernelResult {
+/** The hits in order with their four scores (compiled where it can be, unless `compiled` is false: the brute-force reference scores in JavaScript). */
+function finish(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: Scratch, heap: TopK, postings: number, evaluated: number, compiled = true): KernelResult {
   const order = heap.order();
-  const docs = new Int32Array(order.length);
-  const rank = new Float64Array(order.length);
-  const scores = new Float64Array(order.length * 4);
-  order.forEach((pos, i) => {
-    docs[i] = heap.doc[pos];
-    rank[i] = heap.score[pos];
-    evaluate(seg, q, heap.doc[pos], p.generic, sc, true, scores, i * 4);
-  });
+  const m = order.length;
+  const docs = new Int32Array(m);
+  const rank = new Float64Array(m);
+  const scores = new Float64Array(m * 4);
+  for (let i = 0; i < m; i++) {
+    docs[i] = heap.doc[order[i]];
+    rank[i] = heap.score[order[i]];
+  }
+  const w = sc.wasm;
+  if (compiled && m > 0 && p.generic === null && w !== null && searchKernel() === 'wasm' && m <= w.hitD.length) scoreHitsWasm(seg, q, sc, w, docs, scores);
+  else for (let i = 0; i < m; i++) evaluate(seg, q, docs[i], p.generic, sc, true, scores, i * 4);
   return { docs, rank, scores, postings, evaluated };
+}
+
+/**
+ * The hits' four scores by the compiled scoreHits (wasm/kernels.ts: scoreMerged's
+ * stored-weights path, the same bits): the query by bin and by peak and the
+ * hit docs into this thread's scratch, the scores out of it.
+ */
+function scoreHitsWasm(seg: Segment, q: PreparedSpectrum, sc: Scratch, w: WasmScratch, docs: Int32Array, scores: Float64Array): void {
+  const { qIdx, qW, qE, qEH } = w;
+  let c = 0;
+  for (let i = 0; i < q.n; i++) {
+    const b = q.bins[i];
+    if (b < 0 || b >= seg.nBins) continue;
+    qIdx[b] = c;
+    qW[c] = q.w[i];
+    qE[c] = q.e[i];
+    qEH[c] = sc.qEH[i];
+    c++;
+  }
+  w.hitD.set(docs);
+  w.scoreHits(w.header, docs.length, seg.docStart.byteOffset, seg.fBin.byteOffset, seg.fBin instanceof Int32Array ? 1 : 0, seg.fW.byteOffset, seg.fRel.byteOffset, seg.docNorm.byteOffset, seg.eSum.byteOffset, seg.ePow.byteOffset, seg.eSumW.byteOffset, q.n, q.norm, LN4);
+  scores.set(w.hitOut.subarray(0, docs.length * 4));
+  for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < seg.nBins) qIdx[q.bins[i]] = -1;
 }
 
 /**
@@ -830,7 +857,7 @@ export function bruteForceSegment(seg: Segment, q: PreparedSpectrum, p: KernelPa
       heap.push(p.allow[d] === 2 ? Math.max(0, raw - p.penalty) : raw, d);
     }
   }
-  const r = finish(seg, q, p, sc, heap, 0, evaluated);
+  const r = finish(seg, q, p, sc, heap, 0, evaluated, false);
   clearQuery(sc, q);
   return r;
 }

@@ -77,6 +77,14 @@ function scratchLayout(n: number, nBins: number) {
     st: [Float64Array, 4 * n],
     cur: [Uint32Array, nBins],
     oA: [Float64Array, nBins],
+    // The hits' scores (scoreHits): the hit docs, their four scores, and the
+    // query by bin (its peak index there, -1 elsewhere) and by peak.
+    hitD: [Int32Array, k],
+    hitOut: [Float64Array, 4 * k],
+    qIdx: [Int32Array, nBins],
+    qW: [Float64Array, nBins],
+    qE: [Float64Array, nBins],
+    qEH: [Float64Array, nBins],
   } as const;
 }
 
@@ -126,6 +134,7 @@ export class Arena {
 export interface WasmScratch {
   cosine: (...args: number[]) => void;
   onePass: (...args: number[]) => number;
+  scoreHits: (...args: number[]) => void;
   header: number;
   qDense: Float64Array;
   oQ: Float64Array;
@@ -142,6 +151,13 @@ export interface WasmScratch {
   touched: Int32Array;
   /** Entropy intensities of the query's terms, for the one-pass entropy. */
   oA: Float64Array;
+  hitD: Int32Array;
+  hitOut: Float64Array;
+  /** The query's peak index by bin (-1 elsewhere: kept so between searches). */
+  qIdx: Int32Array;
+  qW: Float64Array;
+  qE: Float64Array;
+  qEH: Float64Array;
 }
 
 /** Grow the segment's memory by this thread's scratch and instantiate the kernel on it; null if that fails. */
@@ -155,7 +171,8 @@ export function wasmScratch(memory: WebAssembly.Memory, n: number, nBins: number
   } catch {
     return null;
   }
-  const instance = new WebAssembly.Instance(mod, { env: { memory } });
+  // (log and pow: the engine's own, so the hits' entropy is scoreMerged's to the bit.)
+  const instance = new WebAssembly.Instance(mod, { env: { memory, log: Math.log, pow: Math.pow } });
   const region = new Arena(memory, base + HEADER_BYTES, base + Math.ceil(bytes / PAGE) * PAGE);
   const layout = scratchLayout(n, nBins);
   const views = {} as { [K in keyof typeof layout]: InstanceType<(typeof layout)[K][0]> };
@@ -166,10 +183,12 @@ export function wasmScratch(memory: WebAssembly.Memory, n: number, nBins: number
     offsets.push(view.byteOffset);
   }
   new Uint32Array(memory.buffer, base, HEADER_BYTES / 4).set(offsets);
-  const { qDense, oQ, oFrom, oTo, R, Q, heapS, heapD, out, allow, st, touched, oA } = views;
+  const { qDense, oQ, oFrom, oTo, R, Q, heapS, heapD, out, allow, st, touched, oA, hitD, hitOut, qIdx, qW, qE, qEH } = views;
+  qIdx.fill(-1);
   return {
     cosine: instance.exports.cosine as (...args: number[]) => void,
     onePass: instance.exports.onePass as (...args: number[]) => number,
+    scoreHits: instance.exports.scoreHits as (...args: number[]) => void,
     header: base,
     qDense,
     oQ,
@@ -184,5 +203,11 @@ export function wasmScratch(memory: WebAssembly.Memory, n: number, nBins: number
     st,
     touched,
     oA,
+    hitD,
+    hitOut,
+    qIdx,
+    qW,
+    qE,
+    qEH,
   };
 }

@@ -193,6 +193,34 @@ describe('the compiled cosine kernel', () => {
     }
   });
 
+  it("scores the hits as scoreMerged does: all four scores to the bit, reweighted entropy and penalties included", () => {
+    const cols = syntheticColumns(4000, 4242);
+    // Steepen every third spectrum's intensities so its entropy falls below 3 and its entropy weights are raised to a power.
+    for (let d = 0; d < cols.count; d += 3) for (let j = cols.offsets[d]; j < cols.offsets[d + 1]; j++) cols.rel[j] = cols.rel[j] ** 6;
+    const seg = SearchIndex.fromColumns(cols).segment;
+    const r = rng(31);
+    const level = { noise: 0.2, dropBelow: 0.02, dropP: 0.3, background: 3 };
+    let reweighted = 0;
+    for (let qi = 0; qi < 24; qi++) {
+      const rankBy = SCORE_NAMES[qi % 4];
+      const k = [1, 30, 100][qi % 3];
+      const q = prepareQuery(noisyReplicate(docPeaks(cols, Math.floor(r() * cols.count)), r, level), resolveSearchOptions({ rankBy, limit: k }));
+      let allow = seg.live;
+      if (qi % 5 === 2) {
+        allow = new Uint8Array(seg.n);
+        for (let d = 0; d < seg.n; d++) allow[d] = [0, 1, 2][Math.floor(r() * 3)];
+      }
+      const params: KernelParams = { k, rankBy, allow, penalty: 0.1, lo: 0, hi: seg.n, generic: null };
+      // (sameFromBothKernels holds the four scores of every hit to the JavaScript ones; the brute force scores with scoreMerged.)
+      const wasm = rankBy === 'entropy' ? searchSegment(seg, q, params) : sameFromBothKernels(seg, q, params);
+      const brute = bruteForceSegment(seg, q, params);
+      expect(Array.from(wasm.docs)).toEqual(Array.from(brute.docs));
+      expect(Array.from(wasm.scores)).toEqual(Array.from(brute.scores));
+      for (const d of wasm.docs) if (seg.ePow[d] > 0) reweighted++;
+    }
+    expect(reweighted).toBeGreaterThan(0);
+  });
+
   it('is what wasm/kernels.ts compiles to (scripts/build-wasm.mjs --check)', () => {
     expect(() => execFileSync(process.execPath, ['scripts/build-wasm.mjs', '--check'], { stdio: 'pipe' })).not.toThrow();
   }, 60_000);
