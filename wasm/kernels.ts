@@ -335,31 +335,31 @@ export function cosine(
       const from = load<u32>(oFrom + (<usize>pos << 2));
       const end = load<u32>(oTo + (<usize>pos << 2));
       postings += <f64>(end - from);
+      // The JavaScript loop's two branches (seen doc: add; new doc: admit) without
+      // a branch: whether a posting's doc is seen or new is a coin toss, and
+      // the mispredictions cost more than doing both. Integer masks pick what
+      // is stored (the engine turns a float select back into a branch); the
+      // stored bits are the JavaScript loop's, as a new doc's state is 0 + the
+      // product, and a scored or excluded doc's state is written back unchanged.
       for (let j = from; j < end; j++) {
         const d = load<i32>(pDoc + (<usize>j << 2));
         const o = acc + (<usize>d << 3);
-        const a = f32at(o);
+        const ab = load<i32>(o);
+        const sb = load<i32>(o, 4);
+        const a = <f64>reinterpret<f32>(ab);
         const w = f32at(pW + (<usize>j << 2));
-        if (a > 0) {
-          const na = a + x * w;
-          store<f32>(o, <f32>na);
-          store<f32>(o + 4, <f32>(f32at(o + 4) + w * w));
-          if (a <= cut && na > cut) {
-            store<i32>(candD + (<usize>nHot << 2), d);
-            nHot++;
-          }
-        } else if (a == 0 && load<u8>(allow + <usize>d) != 0) {
-          store<i32>(touched + (<usize>nTouched << 2), d);
-          nTouched++;
-          store<u8>(seen + <usize>d, 1);
-          const na = max<f64>(x * w, 1e-30);
-          store<f32>(o, <f32>na);
-          store<f32>(o + 4, <f32>(w * w));
-          if (na > cut) {
-            store<i32>(candD + (<usize>nHot << 2), d);
-            nHot++;
-          }
-        }
+        // (Bits > 0: a partial dot; 0: not seen; -1, negative bits: scored.)
+        const isNew = <i32>(ab == 0) & <i32>(load<u8>(allow + <usize>d) != 0);
+        const upd = <i32>(ab > 0) | isNew;
+        const keep = upd - 1;
+        const na = max<f64>(a + x * w, 1e-30);
+        store<i32>(o, (reinterpret<i32>(<f32>na) & ~keep) | (ab & keep));
+        store<i32>(o, (reinterpret<i32>(<f32>(<f64>reinterpret<f32>(sb) + w * w)) & ~keep) | (sb & keep), 4);
+        store<u8>(seen + <usize>d, <u8>upd);
+        store<i32>(touched + (<usize>nTouched << 2), d);
+        nTouched += isNew;
+        store<i32>(candD + (<usize>nHot << 2), d);
+        nHot += upd & <i32>(a <= cut) & <i32>(na > cut);
       }
       pos++;
       if (pos != nextRefresh) continue;
@@ -415,16 +415,19 @@ export function cosine(
   }
   let pending: f64 = pos < T ? estimate(load<f64>(rR + (<usize>pos << 3))) : 0;
   while (pos < T && pending * EVAL_COST > <f64>(load<u32>(oTo + (<usize>pos << 2)) - load<u32>(oFrom + (<usize>pos << 2)))) {
-    const x = load<f64>(oQ + (<usize>pos << 3));
+    // In float32 arithmetic (the JavaScript loop rounds each step with
+    // Math.fround, the same bits): no conversions on the dependency chain,
+    // 2.2 against 1.7 ns a posting here; the rounding is inside CEPS.
+    const x = <f32>load<f64>(oQ + (<usize>pos << 3));
     const from = load<u32>(oFrom + (<usize>pos << 2));
     const end = load<u32>(oTo + (<usize>pos << 2));
     postings += <f64>(end - from);
     for (let j = from; j < end; j++) {
       const d = load<i32>(pDoc + (<usize>j << 2));
       const o = acc + (<usize>d << 3);
-      const w = f32at(pW + (<usize>j << 2)) * <f64>load<u8>(seen + <usize>d);
-      store<f32>(o, <f32>(f32at(o) + x * w));
-      store<f32>(o + 4, <f32>(f32at(o + 4) + w * w));
+      const w = load<f32>(pW + (<usize>j << 2)) * <f32>load<u8>(seen + <usize>d);
+      store<f32>(o, load<f32>(o) + x * w);
+      store<f32>(o + 4, load<f32>(o + 4) + w * w);
     }
     pos++;
     pending = pos < T ? estimate(load<f64>(rR + (<usize>pos << 3))) : 0;
