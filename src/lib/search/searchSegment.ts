@@ -459,8 +459,9 @@ interface Terms {
 function termOrder(seg: Segment, terms: Terms, R: Float64Array, Q: Float64Array): number[] {
   const { tBin, tQ } = terms;
   const T = tBin.length;
-  const tU = tQ.map((x, t) => x * seg.binMaxW[tBin[t]]);
-  const order = Array.from({ length: T }, (_, i) => i).sort((a, b) => tU[b] - tU[a] || tBin[a] - tBin[b]);
+  const tU = new Float64Array(T);
+  for (let t = 0; t < T; t++) tU[t] = tQ[t] * seg.binMaxW[tBin[t]];
+  const order = heaviestFirst(tU, tBin);
   let s1 = 0;
   let s2 = 0;
   R[T] = 0;
@@ -473,6 +474,42 @@ function termOrder(seg: Segment, terms: Terms, R: Float64Array, Q: Float64Array)
     R[i] = Math.min(s1, Q[i]);
   }
   return order;
+}
+
+/**
+ * Term indices by bound, heaviest first, ties by bin: a heapsort inline (a
+ * sort with a comparator called T log T times cost more than the rest of
+ * the query's preparation).
+ */
+export function heaviestFirst(tU: Float64Array, tBin: number[]): number[] {
+  const T = tU.length;
+  // `later(a, b)`: a comes after b. The heap keeps the latest at the root.
+  const later = (a: number, b: number) => tU[a] < tU[b] || (tU[a] === tU[b] && tBin[a] > tBin[b]);
+  const h: number[] = new Array(T);
+  for (let i = 0; i < T; i++) h[i] = i;
+  const down = (from: number, size: number) => {
+    let i = from;
+    for (;;) {
+      const l = 2 * i + 1;
+      const r = l + 1;
+      let m = i;
+      if (l < size && later(h[l], h[m])) m = l;
+      if (r < size && later(h[r], h[m])) m = r;
+      if (m === i) return;
+      const t = h[i];
+      h[i] = h[m];
+      h[m] = t;
+      i = m;
+    }
+  };
+  for (let i = (T >> 1) - 1; i >= 0; i--) down(i, T);
+  for (let size = T - 1; size > 0; size--) {
+    const t = h[0];
+    h[0] = h[size];
+    h[size] = t;
+    down(0, size);
+  }
+  return h;
 }
 
 /** Where the compiled kernels read the filter mask: the segment's live flags, or a copy of the task's mask in the scratch. */
