@@ -386,7 +386,9 @@ export function cosine(
       }
     }
     nHot = 0;
-    cut = pickSize < K ? 0 : load<f64>(pickS);
+    // (Fewer than K picks: the last cut stays, see searchSegment.ts.)
+    if (pickSize == K) cut = load<f64>(pickS);
+    else if (cut == Infinity) cut = 0;
     const rest0 = load<f64>(rR + (<usize>pos << 3));
     for (let i = 0; i < pickSize; i++) {
       const d = load<i32>(pickD + (<usize>i << 2));

@@ -708,7 +708,12 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
         if (a > 0 && (pick.size < p.k || a > pick.score[0])) pick.push(a, d);
       }
     nHot = 0;
-    cut = pick.size < p.k ? 0 : pick.score[0];
+    // With fewer than k picks the last cut stays: every unscored doc not
+    // listed is still at or below it. (Lowering it to 0 would stop listing
+    // the docs already seen, and later refreshes would pick from new docs
+    // alone: 217k against 205k postings a top-100 query at 100k.)
+    if (pick.size === p.k) cut = pick.score[0];
+    else if (cut === Infinity) cut = 0;
     // A pick whose bound is already below the k-th score never reaches it (bounds only fall): leave it.
     const rest = R[pos];
     for (let i = 0; i < pick.size; i++) {
