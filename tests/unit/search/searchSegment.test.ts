@@ -11,6 +11,13 @@ import { setSearchKernel, type SearchKernel } from '../../../src/lib/search/wasm
 import { noisyQuery, randomLibrary, rng, sameFromBothKernels } from './helpers';
 import { docPeaks, noisyReplicate, syntheticColumns } from '../../../bench/synthetic';
 
+/** A synthetic library whose every third spectrum is steepened so its entropy falls below 3: its entropy weights are then raised to a power. */
+function reweightedLibrary(count: number, seed: number) {
+  const cols = syntheticColumns(count, seed);
+  for (let d = 0; d < cols.count; d += 3) for (let j = cols.offsets[d]; j < cols.offsets[d + 1]; j++) cols.rel[j] = cols.rel[j] ** 6;
+  return cols;
+}
+
 const asKeys = (r: { docs: Int32Array; rank: Float64Array }) => Array.from(r.docs, (d, i) => `${d}:${r.rank[i]}`);
 
 describe.each(['wasm', 'js'] as SearchKernel[])('searchSegment (%s kernels)', (kernel) => {
@@ -194,9 +201,7 @@ describe('the compiled cosine kernel', () => {
   });
 
   it("scores the hits as scoreMerged does: all four scores to the bit, reweighted entropy and penalties included", () => {
-    const cols = syntheticColumns(4000, 4242);
-    // Steepen every third spectrum's intensities so its entropy falls below 3 and its entropy weights are raised to a power.
-    for (let d = 0; d < cols.count; d += 3) for (let j = cols.offsets[d]; j < cols.offsets[d + 1]; j++) cols.rel[j] = cols.rel[j] ** 6;
+    const cols = reweightedLibrary(4000, 4242);
     const seg = SearchIndex.fromColumns(cols).segment;
     const r = rng(31);
     const level = { noise: 0.2, dropBelow: 0.02, dropP: 0.3, background: 3 };
@@ -228,9 +233,7 @@ describe('the compiled cosine kernel', () => {
 
 describe('entropy weights of a stored spectrum from its parameters', () => {
   it('score a hit to the same bits as weighting every peak first (entropyWeightsInto into float32), by merge or by lookup', () => {
-    const cols = syntheticColumns(3000, 515);
-    // Steepen every third spectrum's intensities so its entropy falls below 3 and the weights are reweighted.
-    for (let d = 0; d < cols.count; d += 3) for (let j = cols.offsets[d]; j < cols.offsets[d + 1]; j++) cols.rel[j] = cols.rel[j] ** 6;
+    const cols = reweightedLibrary(3000, 515);
     const seg = SearchIndex.fromColumns(cols).segment;
     const r = rng(8);
     const level = { noise: 0.2, dropBelow: 0.02, dropP: 0.3, background: 3 };
