@@ -634,7 +634,8 @@ export function onePass(
  * Scores the `nHits` docs listed at hitD (header slot 23) into hitOut (slot
  * 24): [cosine, reverseCosine, composite, entropy] per hit. The query is at
  * slots 25..28: its peak index by bin (-1 elsewhere), and by peak its
- * weight, entropy intensity and qE ln qE. qN is the query's peak count.
+ * weight, entropy intensity and qE ln qE; slots 29 and 30 hold a hit's
+ * shared peaks while it is scored. qN is the query's peak count.
  */
 export function scoreHits(
   S: usize,
@@ -658,6 +659,25 @@ export function scoreHits(
   const qW: usize = load<u32>(S, 104);
   const qE: usize = load<u32>(S, 108);
   const qEH: usize = load<u32>(S, 112);
+  const shJ: usize = load<u32>(S, 116);
+  const shI: usize = load<u32>(S, 120);
+  // Read a word of every cache line of the hits' peaks first: the reads are
+  // independent, so many are in flight at once, where the scoring below
+  // waits on each hit's in turn (140 against 175 us for 100 hits).
+  let sink: u32 = 0;
+  for (let h = 0; h < nHits; h++) {
+    const d = load<i32>(hitD + (<usize>h << 2));
+    const s0 = load<u32>(docStart + (<usize>d << 2));
+    const e0 = load<u32>(docStart + ((<usize>d + 1) << 2));
+    for (let j = s0 & ~15; j < e0; j += 16) sink += load<u32>(fW + (<usize>j << 2)) + load<u32>(fRel + (<usize>j << 2));
+    if (wide) {
+      for (let j = s0 & ~15; j < e0; j += 16) sink += load<u32>(fBin + (<usize>j << 2));
+    } else {
+      for (let j = s0 & ~31; j < e0; j += 32) sink += <u32>load<u16>(fBin + (<usize>j << 1));
+    }
+  }
+  // (Kept in the scratch's unused last output slot, so the reads are not optimized away.)
+  store<u32>(load<u32>(S, 72), sink, 24);
   for (let h = 0; h < nHits; h++) {
     const d = load<i32>(hitD + (<usize>h << 2));
     const o = hitOut + (<usize>h << 5);
@@ -666,28 +686,38 @@ export function scoreHits(
     const sum = load<f64>(eSum + (<usize>d << 3));
     const pw = load<f64>(ePow + (<usize>d << 3));
     const sumW = load<f64>(eSumW + (<usize>d << 3));
+    // The shared peaks first, listed without a branch (whether a peak is
+    // shared is a coin toss), then scored in the same m/z order.
+    let n: i32 = 0;
+    for (let j = start; j < end; j++) {
+      const b: usize = wide ? <usize>load<i32>(fBin + (<usize>j << 2)) : <usize>load<u16>(fBin + (<usize>j << 1));
+      const i = load<i32>(qIdx + (b << 2));
+      store<u32>(shJ + (<usize>n << 2), j);
+      store<i32>(shI + (<usize>n << 2), i);
+      n += <i32>(i >= 0);
+    }
     let dot: f64 = 0;
     let qShared: f64 = 0;
-    let nShared: f64 = 0;
     let ratioSum: f64 = 0;
     let prevQ: f64 = 0;
     let prevL: f64 = 0;
     let ent: f64 = 0;
-    for (let j = start; j < end; j++) {
-      const b: usize = wide ? <usize>load<i32>(fBin + (<usize>j << 2)) : <usize>load<u16>(fBin + (<usize>j << 1));
-      const i = load<i32>(qIdx + (b << 2));
-      if (i < 0) continue;
+    for (let k = 0; k < n; k++) {
+      const j = load<u32>(shJ + (<usize>k << 2));
+      const i = load<i32>(shI + (<usize>k << 2));
       const x = load<f64>(qW + (<usize>i << 3));
       const y = f32at(fW + (<usize>j << 2));
       dot += x * y;
       qShared += x * x;
-      if (nShared > 0) {
+      if (k > 0) {
+        // r <= 1 ? r : 1 / r, chosen by an integer mask (a coin toss again,
+        // and the engine would turn a float select into a branch).
         const r = (y / prevL) * (prevQ / x);
-        ratioSum += r <= 1 ? r : 1 / r;
+        const keep = -<i64>(r <= 1);
+        ratioSum += reinterpret<f64>((reinterpret<i64>(r) & keep) | (reinterpret<i64>(1 / r) & ~keep));
       }
       prevQ = x;
       prevL = y;
-      nShared++;
       const ea = load<f64>(qE + (<usize>i << 3));
       // entropyWeightAt, rounded to float32 as a stored weight would be.
       let eb: f64 = 0;
@@ -697,8 +727,9 @@ export function scoreHits(
       }
       if (ea > 0 && eb > 0) ent += (ea + eb) * jsLog(ea + eb) - load<f64>(qEH + (<usize>i << 3)) - eb * jsLog(eb);
     }
+    const nShared = <f64>n;
     const lNorm = load<f64>(docNorm + (<usize>d << 3));
-    if (nShared == 0 || !(qNorm > 0) || !(lNorm > 0)) {
+    if (n == 0 || !(qNorm > 0) || !(lNorm > 0)) {
       store<f64>(o, 0);
       store<f64>(o, 0, 8);
       store<f64>(o, 0, 16);

@@ -85,6 +85,9 @@ function scratchLayout(n: number, nBins: number) {
     qW: [Float64Array, nBins],
     qE: [Float64Array, nBins],
     qEH: [Float64Array, nBins],
+    // A hit's shared peaks while scoreHits scores it: the doc's peak index and the query's.
+    shJ: [Uint32Array, nBins],
+    shI: [Int32Array, nBins],
   } as const;
 }
 
