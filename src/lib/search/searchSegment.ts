@@ -108,7 +108,8 @@ function scratchFor(seg: Segment): Scratch {
       gBins: new Int32Array(seg.maxDocPeaks),
       gW: new Float64Array(seg.maxDocPeaks),
       gE: new Float64Array(seg.maxDocPeaks),
-      qIdx: new Int32Array(seg.nBins).fill(-1),
+      // (With the compiled kernel, in its scratch: scoreHits reads it there.)
+      qIdx: wasm ? wasm.qIdx : new Int32Array(seg.nBins).fill(-1),
       eParams: new Float64Array(3),
       qEH: new Float64Array(64),
       wasm,
@@ -201,25 +202,21 @@ function finish(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: Scratch,
 
 /**
  * The hits' four scores by the compiled scoreHits (wasm/kernels.ts: scoreMerged's
- * stored-weights path, the same bits): the query by bin and by peak and the
- * hit docs into this thread's scratch, the scores out of it.
+ * stored-weights path, the same bits): the query by peak and the hit docs
+ * into this thread's scratch, the scores out of it.
  */
 function scoreHitsWasm(seg: Segment, q: PreparedSpectrum, sc: Scratch, w: WasmScratch, docs: Int32Array, scores: Float64Array): void {
-  const { qIdx, qW, qE, qEH } = w;
+  // The query's index by bin is setQuery's (sc.qIdx is the scratch's). Its
+  // bins ascend, so the peaks inside the library's bins are the first ones
+  // and their indices are the same by peak here.
   let c = 0;
-  for (let i = 0; i < q.n; i++) {
-    const b = q.bins[i];
-    if (b < 0 || b >= seg.nBins) continue;
-    qIdx[b] = c;
-    qW[c] = q.w[i];
-    qE[c] = q.e[i];
-    qEH[c] = sc.qEH[i];
-    c++;
-  }
+  while (c < q.n && q.bins[c] < seg.nBins) c++;
+  w.qW.set(q.w.subarray(0, c));
+  w.qE.set(q.e.subarray(0, c));
+  w.qEH.set(sc.qEH.subarray(0, c));
   w.hitD.set(docs);
   w.scoreHits(w.header, docs.length, seg.docStart.byteOffset, seg.fBin.byteOffset, seg.fBin instanceof Int32Array ? 1 : 0, seg.fW.byteOffset, seg.fRel.byteOffset, seg.docNorm.byteOffset, seg.eSum.byteOffset, seg.ePow.byteOffset, seg.eSumW.byteOffset, q.n, q.norm, LN4);
   scores.set(w.hitOut.subarray(0, docs.length * 4));
-  for (let i = 0; i < q.n; i++) if (q.bins[i] >= 0 && q.bins[i] < seg.nBins) qIdx[q.bins[i]] = -1;
 }
 
 /**
