@@ -341,26 +341,39 @@ export function cosine(
       // is stored (the engine turns a float select back into a branch); the
       // stored bits are the JavaScript loop's, as a new doc's state is 0 + the
       // product, and a scored or excluded doc's state is written back unchanged.
-      for (let j = from; j < end; j++) {
-        const d = load<i32>(pDoc + (<usize>j << 2));
-        const o = acc + (<usize>d << 3);
+      // A sum that rounds to 0 is stored as the smallest float32 (0 marks a doc
+      // not seen); cut is compared by bits (non-negative floats order as their
+      // bits). The arrays' bases are locals and the two lists are appended to
+      // through pointers: fewer values live in the loop, so none are spilled.
+      const accL = acc;
+      const seenL = seen;
+      const cutB = reinterpret<i32>(<f32>cut);
+      const dW = pW - pDoc;
+      let tP = touched + (<usize>nTouched << 2);
+      let hP = candD + (<usize>nHot << 2);
+      const pEnd = pDoc + (<usize>end << 2);
+      for (let pj = pDoc + (<usize>from << 2); pj < pEnd; pj += 4) {
+        const d = load<i32>(pj);
+        const o = accL + (<usize>d << 3);
         const ab = load<i32>(o);
         const sb = load<i32>(o, 4);
-        const a = <f64>reinterpret<f32>(ab);
-        const w = f32at(pW + (<usize>j << 2));
+        const w = f32at(pj + dW);
         // (Bits > 0: a partial dot; 0: not seen; -1, negative bits: scored.)
         const isNew = <i32>(ab == 0) & <i32>(load<u8>(allow + <usize>d) != 0);
         const upd = <i32>(ab > 0) | isNew;
         const keep = upd - 1;
-        const na = max<f64>(a + x * w, 1e-30);
-        store<i32>(o, (reinterpret<i32>(<f32>na) & ~keep) | (ab & keep));
+        const nr = reinterpret<i32>(<f32>(<f64>reinterpret<f32>(ab) + x * w));
+        const nb = nr | <i32>(nr == 0);
+        store<i32>(o, (nb & ~keep) | (ab & keep));
         store<i32>(o, (reinterpret<i32>(<f32>(<f64>reinterpret<f32>(sb) + w * w)) & ~keep) | (sb & keep), 4);
-        store<u8>(seen + <usize>d, <u8>upd);
-        store<i32>(touched + (<usize>nTouched << 2), d);
-        nTouched += isNew;
-        store<i32>(candD + (<usize>nHot << 2), d);
-        nHot += upd & <i32>(a <= cut) & <i32>(na > cut);
+        store<u8>(seenL + <usize>d, <u8>upd);
+        store<i32>(tP, d);
+        tP += <usize>isNew << 2;
+        store<i32>(hP, d);
+        hP += <usize>(upd & <i32>(ab <= cutB) & <i32>(nb > cutB)) << 2;
       }
+      nTouched = <i32>((tP - touched) >> 2);
+      nHot = <i32>((hP - candD) >> 2);
       pos++;
       if (pos != nextRefresh) continue;
       nextRefresh *= 2;
@@ -424,10 +437,15 @@ export function cosine(
     const from = load<u32>(oFrom + (<usize>pos << 2));
     const end = load<u32>(oTo + (<usize>pos << 2));
     postings += <f64>(end - from);
-    for (let j = from; j < end; j++) {
-      const d = load<i32>(pDoc + (<usize>j << 2));
-      const o = acc + (<usize>d << 3);
-      const w = load<f32>(pW + (<usize>j << 2)) * <f32>load<u8>(seen + <usize>d);
+    // (The seen byte as a mask: w or +0, the bits of the JavaScript's w * seen.)
+    const accL = acc;
+    const seenL = seen;
+    const dW = pW - pDoc;
+    const pEnd = pDoc + (<usize>end << 2);
+    for (let pj = pDoc + (<usize>from << 2); pj < pEnd; pj += 4) {
+      const d = load<i32>(pj);
+      const o = accL + (<usize>d << 3);
+      const w = reinterpret<f32>(load<i32>(pj + dW) & -<i32>load<u8>(seenL + <usize>d));
       store<f32>(o, load<f32>(o) + x * w);
       store<f32>(o + 4, load<f32>(o + 4) + w * w);
     }

@@ -1,5 +1,5 @@
 import { checkFilters, compileFilters, type EntryMeta } from './filters';
-import { toHits, type Candidate } from './hits';
+import { hitsInOrder, toHits, type Candidate } from './hits';
 import { resolveIndexOptions, resolveSearchOptions, type IndexOptions, type ResolvedIndexOptions, type ResolvedSearchOptions } from './options';
 import { closeSearchPool, getSearchPool } from './pool';
 import { prepareQuery, stage, stageStored, storeSpectrum, type PreparedSpectrum, type StoredSpectrum } from './prepare';
@@ -414,6 +414,12 @@ export class SearchIndex {
     const n = this.seg.n;
     const results: SearchResult[] = new Array(queries.length);
     const finishOne = (i: number, part: TaskHits) => {
+      // With no pending entries the worker's hits are the result, usually in order already.
+      const direct = this.pending.size === 0 ? hitsInOrder(part.docs, part.rank, part.scores, o.limit, filters, this.metaOfDoc) : null;
+      if (direct !== null) {
+        results[i] = { hits: direct, searched: mask.searched, tookMs: 0 };
+        return;
+      }
       const { cands, searched } = this.collect([part], queries[i], o, mask, penalty);
       results[i] = { hits: toHits(cands, o.limit, filters, this.metaOfDoc), searched, tookMs: 0 };
     };

@@ -21,24 +21,40 @@ export function compareCandidates(a: Candidate, b: Candidate): number {
 
 export function toHits(cands: Candidate[], limit: number, filters: SearchFilters | undefined, metaOfDoc: (doc: number) => EntryMeta): SearchHit[] {
   cands.sort(compareCandidates);
-  return cands.slice(0, limit).map((c, i) => {
-    const m = c.meta ?? metaOfDoc(c.doc);
-    const s = c.scores;
-    const scores: Record<ScoreName, number> = { cosine: s[c.at], reverseCosine: s[c.at + 1], composite: s[c.at + 2], entropy: s[c.at + 3] };
-    const hit: SearchHit = {
-      rank: i + 1,
-      recordId: m.recordId,
-      spectrumId: m.spectrumId,
-      version: m.version,
-      name: m.name,
-      formula: m.formula,
-      nominalMass: m.nominalMass,
-      ihd: m.ihd,
-      scores,
-      score: c.score,
-    };
-    const delta = riDelta(m, filters);
-    if (delta !== undefined) hit.riDelta = delta;
-    return hit;
-  });
+  return cands.slice(0, limit).map((c, i) => makeHit(i + 1, c.meta ?? metaOfDoc(c.doc), c.scores, c.at, c.score, filters));
+}
+
+/**
+ * The hits of one kernel result straight from its arrays (no candidate
+ * objects, no sort) when they are already in hit order: ranking score
+ * descending, then doc, which is (record id, spectrum id) order. null when
+ * they are not, and toHits must sort them.
+ */
+export function hitsInOrder(docs: ArrayLike<number>, rank: ArrayLike<number>, scores: ArrayLike<number>, limit: number, filters: SearchFilters | undefined, metaOfDoc: (doc: number) => EntryMeta): SearchHit[] | null {
+  const n = Math.min(limit, docs.length);
+  for (let i = 1; i < docs.length; i++) {
+    if (!(rank[i - 1] > rank[i] || (rank[i - 1] === rank[i] && docs[i - 1] < docs[i]))) return null;
+  }
+  const hits: SearchHit[] = new Array(n);
+  for (let i = 0; i < n; i++) hits[i] = makeHit(i + 1, metaOfDoc(docs[i]), scores, 4 * i, rank[i], filters);
+  return hits;
+}
+
+function makeHit(rank: number, m: EntryMeta, s: ArrayLike<number>, at: number, score: number, filters: SearchFilters | undefined): SearchHit {
+  const scores: Record<ScoreName, number> = { cosine: s[at], reverseCosine: s[at + 1], composite: s[at + 2], entropy: s[at + 3] };
+  const hit: SearchHit = {
+    rank,
+    recordId: m.recordId,
+    spectrumId: m.spectrumId,
+    version: m.version,
+    name: m.name,
+    formula: m.formula,
+    nominalMass: m.nominalMass,
+    ihd: m.ihd,
+    scores,
+    score,
+  };
+  const delta = riDelta(m, filters);
+  if (delta !== undefined) hit.riDelta = delta;
+  return hit;
 }

@@ -16,6 +16,8 @@ const LN4 = Math.log(4);
 const EPS = 1e-5;
 /** The same slack for the cosine's float32 accumulators (see cosineMaxScore). */
 const CEPS = 2e-5;
+/** The smallest positive float32. */
+const MIN_F32 = 2 ** -149;
 /** Work of one exact rescoring, in postings read (a merge over ~2 x 80 peaks). */
 const EVAL_COST = 40;
 /** Docs rescored together, their loops interleaved (the compiled kernel's flush holds the same number). */
@@ -735,14 +737,16 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
       const a = acc[o];
       const w = pW[j];
       if (a > 0) {
-        const na = a + x * w;
+        const na = Math.fround(a + x * w);
         acc[o] = na;
         acc[o + 1] += w * w;
         if (a <= cut && na > cut) hot[nHot++] = d;
       } else if (a === 0 && allow[d] !== 0) {
         touched[nTouched++] = d;
         seen[d] = 1;
-        const na = Math.max(x * w, 1e-30);
+        // (A product that rounds to 0 is stored as the smallest float32: 0 marks a doc not seen.)
+        const p = Math.fround(x * w);
+        const na = p === 0 ? MIN_F32 : p;
         acc[o] = na;
         acc[o + 1] = w * w;
         if (na > cut) hot[nHot++] = d;
