@@ -343,7 +343,8 @@ export function cosine(
       // product, and a scored or excluded doc's state is written back unchanged.
       // A sum that rounds to 0 is stored as the smallest float32 (0 marks a doc
       // not seen); cut is compared by bits (non-negative floats order as their
-      // bits). The arrays' bases are locals and the two lists are appended to
+      // bits). The sum of squares is added in float32 arithmetic (the JavaScript
+      // rounds its product with Math.fround). The arrays' bases are locals and the two lists are appended to
       // through pointers: fewer values live in the loop, so none are spilled.
       const accL = acc;
       const seenL = seen;
@@ -357,7 +358,8 @@ export function cosine(
         const o = accL + (<usize>d << 3);
         const ab = load<i32>(o);
         const sb = load<i32>(o, 4);
-        const w = f32at(pj + dW);
+        const w32 = load<f32>(pj + dW);
+        const w = <f64>w32;
         // (Bits > 0: a partial dot; 0: not seen; -1, negative bits: scored.)
         const isNew = <i32>(ab == 0) & <i32>(load<u8>(allow + <usize>d) != 0);
         const upd = <i32>(ab > 0) | isNew;
@@ -365,7 +367,7 @@ export function cosine(
         const nr = reinterpret<i32>(<f32>(<f64>reinterpret<f32>(ab) + x * w));
         const nb = nr | <i32>(nr == 0);
         store<i32>(o, (nb & ~keep) | (ab & keep));
-        store<i32>(o, (reinterpret<i32>(<f32>(<f64>reinterpret<f32>(sb) + w * w)) & ~keep) | (sb & keep), 4);
+        store<i32>(o, (reinterpret<i32>(reinterpret<f32>(sb) + w32 * w32) & ~keep) | (sb & keep), 4);
         store<u8>(seenL + <usize>d, <u8>upd);
         store<i32>(tP, d);
         tP += <usize>isNew << 2;

@@ -4,6 +4,7 @@ import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Piscina } from 'piscina';
 import type { SearchTask, TaskHits } from './runSearchTask';
+import { toWire, unpackHits, type PackedHits } from './taskWire';
 
 export interface WorkerLocation {
   file: string;
@@ -91,7 +92,7 @@ export function getSearchPool(): SearchPool | null {
     pool = {
       threads,
       location,
-      run: (task) => piscina.run(task) as Promise<TaskHits[]>,
+      run: async (task) => unpackHits((await piscina.run(toWire(task))) as PackedHits),
       close: async () => {
         pool = undefined;
         await piscina.destroy();

@@ -739,7 +739,8 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
       if (a > 0) {
         const na = Math.fround(a + x * w);
         acc[o] = na;
-        acc[o + 1] += w * w;
+        // (The sum of squares in float32 arithmetic, as the compiled kernel adds it.)
+        acc[o + 1] += Math.fround(w * w);
         if (a <= cut && na > cut) hot[nHot++] = d;
       } else if (a === 0 && allow[d] !== 0) {
         touched[nTouched++] = d;
@@ -748,7 +749,7 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
         const p = Math.fround(x * w);
         const na = p === 0 ? MIN_F32 : p;
         acc[o] = na;
-        acc[o + 1] = w * w;
+        acc[o + 1] = Math.fround(w * w);
         if (na > cut) hot[nHot++] = d;
       }
     }

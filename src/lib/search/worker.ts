@@ -2,7 +2,8 @@
 // under tsx/vitest and bundled (scripts/build-search-worker.mjs) in production.
 import { readlinkSync } from 'node:fs';
 import os from 'node:os';
-import { runSearchTask, type SearchTask } from './runSearchTask';
+import { runSearchTask } from './runSearchTask';
+import { fromWire, packHits, type PackedHits, type WireTask } from './taskWire';
 
 // On Linux, lower this thread's scheduling priority (SEARCH_WORKER_NICE, default 5)
 // so that when the cores are saturated the web server's event loop still gets
@@ -17,6 +18,6 @@ try {
   /* not permitted or not Linux: run at normal priority */
 }
 
-export default function searchWorker(task: SearchTask) {
-  return runSearchTask(task);
+export default function searchWorker(task: WireTask): PackedHits {
+  return packHits(runSearchTask(fromWire(task)));
 }
