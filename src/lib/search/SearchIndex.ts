@@ -28,6 +28,9 @@ const POOL_MIN_DOCS = 50_000;
 /** Queries per pool task in a batch. */
 const BATCH_CHUNK = 32;
 
+/** The empty lists of a doc without metadata, shared (and frozen: never written). */
+const NONE = Object.freeze([]) as unknown as never[];
+
 const yieldToLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
 
 function validateEntry(e: LibraryEntry): void {
@@ -178,10 +181,10 @@ export class SearchIndex {
       formula: null,
       nominalMass: null,
       ihd: null,
-      elements: [],
-      tags: [],
+      elements: NONE,
+      tags: NONE,
       status: 'released',
-      ri: [],
+      ri: NONE,
     };
   }
 
