@@ -175,7 +175,7 @@ export function wasmScratch(memory: WebAssembly.Memory, n: number, nBins: number
     return null;
   }
   // (log and pow: the engine's own, so the hits' entropy is scoreMerged's to the bit.)
-  const instance = new WebAssembly.Instance(mod, { env: { memory, log: Math.log, pow: Math.pow } });
+  const instance = new WebAssembly.Instance(mod, { env: { memory, pow: Math.pow } });
   const region = new Arena(memory, base + HEADER_BYTES, base + Math.ceil(bytes / PAGE) * PAGE);
   const layout = scratchLayout(n, nBins);
   const views = {} as { [K in keyof typeof layout]: InstanceType<(typeof layout)[K][0]> };

@@ -15,6 +15,30 @@ describe('wasmKernel', () => {
     expect(searchKernel()).toBe('wasm');
   });
 
+  // Reference: the engine's own Math.log (fdlibm's __ieee754_log), which the
+  // brute-force entropy scores use; the hits' compiled scores use the port.
+  it('takes logarithms to the bits of Math.log', () => {
+    const memory = new WebAssembly.Memory({ initial: 1, maximum: 16, shared: true });
+    const { logOf } = new WebAssembly.Instance(kernelModule() as WebAssembly.Module, { env: { memory, pow: Math.pow } }).exports as { logOf: (x: number) => number };
+    let seed = 99;
+    const next = () => (seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0) / 4294967296;
+    const bits = new Float64Array(1);
+    const words = new Uint32Array(bits.buffer);
+    const special = [0, -0, 1, 2, 0.5, Number.MIN_VALUE, 1e-310, Infinity, -Infinity, NaN, -1, 1 + 2 ** -52, 1 - 2 ** -53, Number.MAX_VALUE, Math.fround(1e-30)];
+    const values: number[] = [...special];
+    for (let i = 0; i < 400_000; i++) {
+      values.push(2 * next()); // the range of entropy intensities and their sums
+      values.push(Math.fround(next()) + Math.fround(next()) / 7);
+      values.push(2 ** -Math.floor(next() * 60) * (1 + next() * 1e-6)); // near powers of two
+      words[0] = next() * 4294967296;
+      words[1] = next() * 2147483648; // any positive double
+      values.push(bits[0]);
+    }
+    let differ = 0;
+    for (const v of values) if (!Object.is(logOf(v), Math.log(v))) differ++;
+    expect(differ).toBe(0);
+  });
+
   it('carves 8-byte-aligned arrays from one shared memory, after a first page left to the module, and refuses to overflow it', () => {
     const arena = Arena.create(1000, 10, 10);
     expect(arena).not.toBeNull();
