@@ -7,13 +7,12 @@
 // anything else (invalid or zero-intensity peaks, unsorted m/z, profile data,
 // a malformed buffer) goes through decodePeaks and storeSpectrum themselves.
 import { storeSpectrum } from './search/prepare';
-import { checkTolerance } from './search/binPeaks';
+import { binSortedRuns, checkTolerance } from './search/binPeaks';
+import { CENTROID_MAX_GAP, looksLikeProfile } from './search/centroid';
 import { checkNoiseFloor } from './search/applyNoiseFloor';
 import type { StoredColumns } from './search/segment';
 import { decodePeaks, PACKED_PEAKS_MAGIC } from './spectra/index';
 
-/** centroid()'s default maxGap: points this close to their neighbour make profile data. */
-const CENTROID_MAX_GAP = 0.2;
 
 /** Peaks per block of the builder (8 MB of bins and intensities). */
 const BLOCK_PEAKS = 1 << 20;
@@ -174,10 +173,9 @@ export class StoredColumnsBuilder {
       }
       prev = m;
     }
-    if (n >= 3 && close * 2 > n - 1) return false; // profile data: centroid would merge points
+    if (looksLikeProfile(close, n)) return false; // profile data: centroid would merge points
 
-    // binPeaks: sorted m/z gives non-decreasing bins, so each bin is one run,
-    // summed in input order as binPeaks's Map does.
+    // binPeaks (each bin one run of the sorted m/z).
     const tol = this.tolerance;
     if (this.binNo.length < n) {
       this.binNo = new Float64Array(n * 2);
@@ -185,18 +183,7 @@ export class StoredColumnsBuilder {
     }
     const binNo = this.binNo;
     const binSum = this.binSum;
-    let k = -1;
-    for (let i = 0; i < n; i++) {
-      const b = Math.round(mz[mz0 + i] / tol);
-      if (k >= 0 && b === binNo[k]) {
-        binSum[k] += intensity[in0 + i];
-      } else {
-        k++;
-        binNo[k] = b;
-        binSum[k] = 0 + intensity[in0 + i];
-      }
-    }
-    const nb = k + 1;
+    const nb = binSortedRuns(mz, mz0, intensity, in0, n, tol, binNo, binSum);
     // normalizeToBase, then the noise floor, then storeSpectrum's rounding to the stored types.
     let base = 0;
     for (let j = 0; j < nb; j++) if (binSum[j] > base) base = binSum[j];

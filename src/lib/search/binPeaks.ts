@@ -37,3 +37,25 @@ export function binPeaks(peaks: readonly Peak[], options: BinOptions = {}): Peak
     .sort((a, b) => a - b)
     .map((bin) => [tolerance === 1 ? bin : bin * tolerance, sums.get(bin) as number]);
 }
+
+/**
+ * binPeaks on peaks already sorted by m/z, into flat arrays: m/z i at
+ * mz[mzAt + i], its intensity at intensity[inAt + i]. Sorted m/z gives
+ * non-decreasing bins, so each bin is one run, summed in input order as
+ * binPeaks's Map does (the same bits). Writes bin numbers and sums; returns
+ * the bin count.
+ */
+export function binSortedRuns(mz: ArrayLike<number>, mzAt: number, intensity: ArrayLike<number>, inAt: number, n: number, tolerance: number, binNo: Float64Array | Int32Array, binSum: Float64Array): number {
+  let k = -1;
+  for (let i = 0; i < n; i++) {
+    const b = binOf(mz[mzAt + i], tolerance);
+    if (k >= 0 && b === binNo[k]) {
+      binSum[k] += intensity[inAt + i];
+    } else {
+      k++;
+      binNo[k] = b;
+      binSum[k] = 0 + intensity[inAt + i];
+    }
+  }
+  return k + 1;
+}

@@ -18,13 +18,21 @@ export interface CentroidOptions {
  * centroided input comes back sorted and otherwise unchanged (repeated m/z
  * values are left for binPeaks to sum).
  */
+/** centroid()'s default maxGap: points this close to their neighbour make profile data. */
+export const CENTROID_MAX_GAP = 0.2;
+
+/** centroid()'s test: n points sorted by m/z, `close` of their neighbour gaps at most maxGap, are profile data. */
+export function looksLikeProfile(close: number, n: number): boolean {
+  return n >= 3 && close * 2 > n - 1;
+}
+
 export function centroid(peaks: readonly Peak[], options: CentroidOptions = {}): Peak[] {
-  const { maxGap = 0.2 } = options;
+  const { maxGap = CENTROID_MAX_GAP } = options;
   if (!(maxGap >= 0) || !Number.isFinite(maxGap)) throw new RangeError('maxGap must be a finite number >= 0');
   const sorted = [...peaks].sort((a, b) => a[0] - b[0]);
   let close = 0;
   for (let k = 1; k < sorted.length; k++) if (sorted[k][0] - sorted[k - 1][0] <= maxGap) close++;
-  if (sorted.length < 3 || close * 2 <= sorted.length - 1) return sorted.map((p) => [p[0], p[1]]);
+  if (!looksLikeProfile(close, sorted.length)) return sorted.map((p) => [p[0], p[1]]);
   const out: Peak[] = [];
   let i = 0;
   while (i < sorted.length) {

@@ -1,6 +1,6 @@
-import { centroid } from './centroid';
+import { centroid, CENTROID_MAX_GAP, looksLikeProfile } from './centroid';
 import { dropInvalid } from './dropInvalid';
-import { binPeaks, checkTolerance } from './binPeaks';
+import { binPeaks, binSortedRuns, checkTolerance } from './binPeaks';
 import { normalizeToBase } from './normalizeToBase';
 import { applyNoiseFloor } from './applyNoiseFloor';
 import { entropyWeightsInto } from './entropyWeights';
@@ -180,22 +180,12 @@ function centroidedQuery(peaks: readonly Peak[], o: QueryOptions): PreparedSpect
   }
   // centroid's test for profile data.
   let close = 0;
-  for (let k = 1; k < n; k++) if (mz[k] - mz[k - 1] <= 0.2) close++;
-  if (n >= 3 && close * 2 > n - 1) return null;
-  // binPeaks: a bin's intensities summed in m/z order (a bin's peaks are adjacent, as round(m/z / tolerance) only grows).
+  for (let k = 1; k < n; k++) if (mz[k] - mz[k - 1] <= CENTROID_MAX_GAP) close++;
+  if (looksLikeProfile(close, n)) return null;
   const bins = new Int32Array(n);
   const rel = new Float64Array(n);
-  let nb = 0;
+  let nb = binSortedRuns(mz, 0, inten, 0, n, tol, bins, rel);
   let base = 0;
-  for (let i = 0; i < n; i++) {
-    const b = Math.round(mz[i] / tol);
-    if (nb > 0 && bins[nb - 1] === b) rel[nb - 1] += inten[i];
-    else {
-      bins[nb] = b;
-      rel[nb] = 0 + inten[i];
-      nb++;
-    }
-  }
   for (let i = 0; i < nb; i++) if (rel[i] > base) base = rel[i];
   if (!(base > 0)) nb = 0;
   for (let i = 0; i < nb; i++) {
