@@ -23,7 +23,6 @@ const NB: i32 = 256;
 
 // Scratch (set from the header at each call).
 let acc: usize = 0; // f32 x 2n: partial dot (0 unseen, -1 scored), sum of read squares
-let seen: usize = 0; // u8 x n
 let touched: usize = 0; // i32 x n
 let candD: usize = 0; // i32 x (n + 1), also the hot list
 let candV: usize = 0; // f64 x n
@@ -136,7 +135,6 @@ function heapPush(sP: usize, dP: usize, size: i32, score: f64, doc: i32): i32 {
 function settle(d: i32, dot: f64): void {
   const o = acc + (<usize>d << 3);
   store<f32>(o, -1);
-  store<u8>(seen + <usize>d, 0);
   evaluated++;
   const dn = load<f64>(gDocNorm + (<usize>d << 3));
   if (dot > 0 && gQNorm > 0 && dn > 0) {
@@ -266,6 +264,41 @@ function flush(): void {
   return <i32>min<f64>(<f64>(NB - 1), max<f64>(0, Math.floor((v - floorV) / width)));
 }
 
+/**
+ * Marks the excluded docs of lo..hi (mask byte 0) as scored (state -1),
+ * so the admission tells them from new docs by their state alone. The mask is
+ * read eight bytes at a time, and only a word with a zero byte is looked into
+ * (every doc's state is 0 at the start of a search, so writing 0 for the
+ * others changes nothing). Returns whether any doc was marked.
+ */
+/** The bits of a scored doc's state, float32 -1 (a NaN's bits would not survive the arithmetic). */
+const SCORED: i32 = reinterpret<i32>(<f32>-1);
+
+function markExcluded(allow: usize, lo: i32, hi: i32): bool {
+  let any: u64 = 0;
+  let d = lo;
+  for (; d < hi && (d & 7) != 0; d++) {
+    const z = <i32>(load<u8>(allow + <usize>d) == 0);
+    store<i32>(acc + (<usize>d << 3), -z & SCORED);
+    any |= <u64>z;
+  }
+  for (; d + 8 <= hi; d += 8) {
+    const v = load<u64>(allow + <usize>d);
+    // (A word with a zero byte: the classic test, exact for the high bits.)
+    const z = (v - 0x0101010101010101) & ~v & 0x8080808080808080;
+    if (z != 0) {
+      any |= z;
+      for (let i = 0; i < 8; i++) store<i32>(acc + (<usize>(d + i) << 3), -<i32>(load<u8>(allow + <usize>(d + i)) == 0) & SCORED);
+    }
+  }
+  for (; d < hi; d++) {
+    const z = <i32>(load<u8>(allow + <usize>d) == 0);
+    store<i32>(acc + (<usize>d << 3), -z & SCORED);
+    any |= <u64>z;
+  }
+  return any != 0;
+}
+
 export function cosine(
   S: usize,
   docStart: usize,
@@ -285,7 +318,6 @@ export function cosine(
   qNorm: f64,
 ): void {
   acc = load<u32>(S);
-  seen = load<u32>(S, 4);
   touched = load<u32>(S, 8);
   candD = load<u32>(S, 12);
   candV = load<u32>(S, 16);
@@ -320,6 +352,7 @@ export function cosine(
   let nTouched: i32 = 0;
   let postings: f64 = 0;
   const quarter = (hi - lo) >> 2;
+  const marked = markExcluded(allow, lo, hi);
 
   // Refresh: score the seen docs with the best partial dots (see searchSegment.ts).
   let nHot: i32 = 0;
@@ -335,19 +368,22 @@ export function cosine(
       const from = load<u32>(oFrom + (<usize>pos << 2));
       const end = load<u32>(oTo + (<usize>pos << 2));
       postings += <f64>(end - from);
-      // The JavaScript loop's two branches (seen doc: add; new doc: admit) without
-      // a branch: whether a posting's doc is seen or new is a coin toss, and
-      // the mispredictions cost more than doing both. Integer masks pick what
-      // is stored (the engine turns a float select back into a branch); the
-      // stored bits are the JavaScript loop's, as a new doc's state is 0 + the
-      // product, and a scored or excluded doc's state is written back unchanged.
-      // A sum that rounds to 0 is stored as the smallest float32 (0 marks a doc
-      // not seen); cut is compared by bits (non-negative floats order as their
-      // bits). The sum of squares is added in float32 arithmetic (the JavaScript
-      // rounds its product with Math.fround). The arrays' bases are locals and the two lists are appended to
-      // through pointers: fewer values live in the loop, so none are spilled.
+      // The JavaScript loop's two branches (seen doc: add; new doc: admit) in
+      // one without a branch: whether a posting's doc is seen or new is a coin
+      // toss, and the mispredictions cost more than doing both. A doc's state
+      // bits say which it is (> 0: a partial dot; 0: not seen; negative: scored,
+      // or excluded, see markExcluded), so the updated ones are those with bits
+      // >= 0 and the others get +0 added, which leaves their bits as they are
+      // (the weight is masked by an integer mask: the engine turns a float
+      // select into a branch). The stored bits are the JavaScript loop's: a new
+      // doc's state is 0 + the product. A sum that rounds to 0 is stored as
+      // the smallest float32 (0 marks a doc not seen); cut is compared by bits
+      // (non-negative floats order as their bits; a scored doc's bits stay
+      // below it). The sum of squares is added in float32 arithmetic (the
+      // JavaScript rounds its product with Math.fround). The arrays' bases are
+      // locals and the two lists are appended to through pointers: fewer
+      // values live in the loop, so fewer are spilled.
       const accL = acc;
-      const seenL = seen;
       const cutB = reinterpret<i32>(<f32>cut);
       const dW = pW - pDoc;
       let tP = touched + (<usize>nTouched << 2);
@@ -357,22 +393,15 @@ export function cosine(
         const d = load<i32>(pj);
         const o = accL + (<usize>d << 3);
         const ab = load<i32>(o);
-        const sb = load<i32>(o, 4);
-        const w32 = load<f32>(pj + dW);
-        const w = <f64>w32;
-        // (Bits > 0: a partial dot; 0: not seen; -1, negative bits: scored.)
-        const isNew = <i32>(ab == 0) & <i32>(load<u8>(allow + <usize>d) != 0);
-        const upd = <i32>(ab > 0) | isNew;
-        const keep = upd - 1;
-        const nr = reinterpret<i32>(<f32>(<f64>reinterpret<f32>(ab) + x * w));
+        const w = reinterpret<f32>(load<i32>(pj + dW) & -<i32>(ab >= 0));
+        const nr = reinterpret<i32>(<f32>(<f64>reinterpret<f32>(ab) + x * <f64>w));
         const nb = nr | <i32>(nr == 0);
-        store<i32>(o, (nb & ~keep) | (ab & keep));
-        store<i32>(o, (reinterpret<i32>(reinterpret<f32>(sb) + w32 * w32) & ~keep) | (sb & keep), 4);
-        store<u8>(seenL + <usize>d, <u8>upd);
+        store<i32>(o, nb);
+        store<f32>(o, load<f32>(o, 4) + w * w, 4);
         store<i32>(tP, d);
-        tP += <usize>isNew << 2;
+        tP += <usize>(ab == 0) << 2;
         store<i32>(hP, d);
-        hP += <usize>(upd & <i32>(ab <= cutB) & <i32>(nb > cutB)) << 2;
+        hP += <usize>(<i32>(ab <= cutB) & <i32>(nb > cutB)) << 2;
       }
       nTouched = <i32>((tP - touched) >> 2);
       nHot = <i32>((hP - candD) >> 2);
@@ -439,16 +468,17 @@ export function cosine(
     const from = load<u32>(oFrom + (<usize>pos << 2));
     const end = load<u32>(oTo + (<usize>pos << 2));
     postings += <f64>(end - from);
-    // (The seen byte as a mask: w or +0, the bits of the JavaScript's w * seen.)
+    // (Whether the doc is seen, its bits > 0, as a mask: w or +0, the bits of
+    // the JavaScript's w * seen.)
     const accL = acc;
-    const seenL = seen;
     const dW = pW - pDoc;
     const pEnd = pDoc + (<usize>end << 2);
     for (let pj = pDoc + (<usize>from << 2); pj < pEnd; pj += 4) {
       const d = load<i32>(pj);
       const o = accL + (<usize>d << 3);
-      const w = reinterpret<f32>(load<i32>(pj + dW) & -<i32>load<u8>(seenL + <usize>d));
-      store<f32>(o, load<f32>(o) + x * w);
+      const ab = load<i32>(o);
+      const w = reinterpret<f32>(load<i32>(pj + dW) & -<i32>(ab > 0));
+      store<f32>(o, reinterpret<f32>(ab) + x * w);
       store<f32>(o + 4, load<f32>(o + 4) + w * w);
     }
     pos++;
@@ -463,13 +493,13 @@ export function cosine(
   if (nTouched > quarter) {
     for (let d = lo; d < hi; d++) {
       store<i32>(candD + (<usize>nPass << 2), d);
-      nPass += <i32>load<u8>(seen + <usize>d) & <i32>(partial(d) + rest >= th0);
+      nPass += <i32>(load<i32>(acc + (<usize>d << 3)) > 0) & <i32>(partial(d) + rest >= th0);
     }
   } else {
     for (let t = 0; t < nTouched; t++) {
       const d = load<i32>(touched + (<usize>t << 2));
       store<i32>(candD + (<usize>nPass << 2), d);
-      nPass += <i32>load<u8>(seen + <usize>d) & <i32>(partial(d) + rest >= th0);
+      nPass += <i32>(load<i32>(acc + (<usize>d << 3)) > 0) & <i32>(partial(d) + rest >= th0);
     }
   }
   let nCand: i32 = 0;
@@ -525,15 +555,10 @@ export function cosine(
   }
 
   // Clear the per-doc state for the next search.
-  if (nTouched > quarter) {
+  if (marked || nTouched > quarter) {
     memory.fill(acc + (<usize>lo << 3), 0, <usize>(hi - lo) << 3);
-    memory.fill(seen + <usize>lo, 0, <usize>(hi - lo));
   } else {
-    for (let t = 0; t < nTouched; t++) {
-      const d = load<i32>(touched + (<usize>t << 2));
-      store<u64>(acc + (<usize>d << 3), 0);
-      store<u8>(seen + <usize>d, 0);
-    }
+    for (let t = 0; t < nTouched; t++) store<u64>(acc + (<usize>load<i32>(touched + (<usize>t << 2)) << 3), 0);
   }
   store<f64>(out, postings);
   store<f64>(out, <f64>evaluated, 8);
