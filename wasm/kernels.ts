@@ -778,6 +778,7 @@ export function scoreHits(
     const d = load<i32>(hitD + (<usize>h << 2));
     const s0 = load<u32>(docStart + (<usize>d << 2));
     const e0 = load<u32>(docStart + ((<usize>d + 1) << 2));
+    sink += load<u32>(eSum + (<usize>d << 3)) + load<u32>(ePow + (<usize>d << 3)) + load<u32>(eSumW + (<usize>d << 3)) + load<u32>(docNorm + (<usize>d << 3));
     for (let j = s0 & ~15; j < e0; j += 16) sink += load<u32>(fW + (<usize>j << 2)) + load<u32>(fRel + (<usize>j << 2));
     if (wide) {
       for (let j = s0 & ~15; j < e0; j += 16) sink += load<u32>(fBin + (<usize>j << 2));
