@@ -379,10 +379,12 @@ export function cosine(
       // doc's state is 0 + the product. A sum that rounds to 0 is stored as
       // the smallest float32 (0 marks a doc not seen); cut is compared by bits
       // (non-negative floats order as their bits; a scored doc's bits stay
-      // below it). The sum of squares is added in float32 arithmetic (the
-      // JavaScript rounds its product with Math.fround). The arrays' bases are
+      // below it). The products and sums are in float32 arithmetic, as the
+      // JavaScript rounds them with Math.fround (no conversions on the way:
+      // 3.0 against 3.5 ns a posting here). The arrays' bases are
       // locals and the two lists are appended to through pointers: fewer
       // values live in the loop, so fewer are spilled.
+      const xf = <f32>x;
       const accL = acc;
       const cutB = reinterpret<i32>(<f32>cut);
       const dW = pW - pDoc;
@@ -394,7 +396,7 @@ export function cosine(
         const o = accL + (<usize>d << 3);
         const ab = load<i32>(o);
         const w = reinterpret<f32>(load<i32>(pj + dW) & -<i32>(ab >= 0));
-        const nr = reinterpret<i32>(<f32>(<f64>reinterpret<f32>(ab) + x * <f64>w));
+        const nr = reinterpret<i32>(reinterpret<f32>(ab) + xf * w);
         const nb = nr | <i32>(nr == 0);
         store<i32>(o, nb);
         store<f32>(o, load<f32>(o, 4) + w * w, 4);

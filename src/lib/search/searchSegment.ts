@@ -565,8 +565,8 @@ function cosineWasm(seg: Segment, q: PreparedSpectrum, p: KernelParams, w: WasmS
  * admission multiply instead of testing (a third of the postings or so are
  * of seen docs, at random, and the mispredicted tests cost more than the
  * updates: 7.4 against 4.1 ns a posting measured here). The float32
- * rounding (a rounding of each sum, and after admission of each product too,
- * of values <= 1: under 1e-5 for 80 shared peaks) is inside CEPS.
+ * rounding (a rounding of each product and each sum, of values <= 1: under
+ * 1e-5 for 80 shared peaks) is inside CEPS.
  */
 function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: Scratch, heap: TopK, terms: Terms): { postings: number; evaluated: number } {
   const { tQ, tFrom, tTo } = terms;
@@ -728,7 +728,9 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
   let nextRefresh = 1;
   while (pos < T && R[pos] >= theta()) {
     const t = order[pos];
-    const x = tQ[t];
+    // (In float32 arithmetic, as the compiled kernel does it: each product
+    // and each sum rounded by Math.fround.)
+    const x = Math.fround(tQ[t]);
     const end = tTo[t];
     postings += end - tFrom[t];
     for (let j = tFrom[t]; j < end; j++) {
@@ -737,7 +739,7 @@ function cosineMaxScore(seg: Segment, q: PreparedSpectrum, p: KernelParams, sc: 
       const a = acc[o];
       const w = pW[j];
       if (a > 0) {
-        const na = Math.fround(a + x * w);
+        const na = Math.fround(a + Math.fround(x * w));
         acc[o] = na;
         // (The sum of squares in float32 arithmetic, as the compiled kernel adds it.)
         acc[o + 1] += Math.fround(w * w);
