@@ -491,17 +491,21 @@ export function cosine(
   const rest = load<f64>(rR + (<usize>pos << 3));
   const qRest = load<f64>(rQ + (<usize>pos << 3));
   const th0 = theta();
+  // (The JavaScript's test, partial > 0 and partial + rest >= th0, as one
+  // comparison of the state's bits: aMin is the smallest positive float32's
+  // bits that pass it, as the sum only grows with the partial.)
+  const aMin = leastPassing(rest, th0);
   let nPass: i32 = 0;
   if (nTouched > quarter) {
     for (let d = lo; d < hi; d++) {
       store<i32>(candD + (<usize>nPass << 2), d);
-      nPass += <i32>(load<i32>(acc + (<usize>d << 3)) > 0) & <i32>(partial(d) + rest >= th0);
+      nPass += <i32>(load<i32>(acc + (<usize>d << 3)) >= aMin);
     }
   } else {
     for (let t = 0; t < nTouched; t++) {
       const d = load<i32>(touched + (<usize>t << 2));
       store<i32>(candD + (<usize>nPass << 2), d);
-      nPass += <i32>(load<i32>(acc + (<usize>d << 3)) > 0) & <i32>(partial(d) + rest >= th0);
+      nPass += <i32>(load<i32>(acc + (<usize>d << 3)) >= aMin);
     }
   }
   let nCand: i32 = 0;
@@ -565,6 +569,21 @@ export function cosine(
   store<f64>(out, postings);
   store<f64>(out, <f64>evaluated, 8);
   store<f64>(out, <f64>heapSize, 16);
+}
+
+/** The bits of the smallest positive float32 a with a + rest >= th (f64 arithmetic); above +Infinity's bits when there is none. */
+function leastPassing(rest: f64, th: f64): i32 {
+  const INF_BITS: i32 = 0x7f800000;
+  if (!(<f64>Infinity + rest >= th)) return INF_BITS + 1;
+  let lo: i32 = 1;
+  let hi: i32 = INF_BITS;
+  // Invariant: bits hi pass; every bits below lo fail.
+  while (lo < hi) {
+    const mid = lo + ((hi - lo) >> 1);
+    if (<f64>reinterpret<f32>(mid) + rest >= th) hi = mid;
+    else lo = mid + 1;
+  }
+  return lo;
 }
 
 @inline function estimate(rest: f64): f64 {
