@@ -18,7 +18,7 @@ const source = path.join(root, 'wasm', 'kernels.ts');
 const target = path.join(root, 'src', 'lib', 'search', 'kernelsWasm.generated.ts');
 
 /** The compiler's flags: no runtime or allocator (the kernel allocates nothing), memory imported and shared. */
-export const ASC_FLAGS = ['-O3', '--runtime', 'stub', '--importMemory', '--sharedMemory', '--enable', 'threads', '--initialMemory', '1', '--maximumMemory', '65536', '--noAssert', '--use', 'abort='];
+export const ASC_FLAGS = ['-O3', '--runtime', 'stub', '--importMemory', '--sharedMemory', '--enable', 'threads,simd', '--initialMemory', '1', '--maximumMemory', '65536', '--noAssert', '--use', 'abort='];
 
 export function compile() {
   const dir = mkdtempSync(path.join(os.tmpdir(), 'ionotheca-wasm-'));
