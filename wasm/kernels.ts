@@ -403,7 +403,8 @@ export function cosine(
         store<i32>(tP, d);
         tP += <usize>(ab == 0) << 2;
         store<i32>(hP, d);
-        hP += <usize>(<i32>(ab <= cutB) & <i32>(nb > cutB)) << 2;
+        // (ab <= cutB < nb as one unsigned comparison: nb >= ab here.)
+        hP += <usize>(<u32>(cutB - ab) < <u32>(nb - ab)) << 2;
       }
       nTouched = <i32>((tP - touched) >> 2);
       nHot = <i32>((hP - candD) >> 2);
