@@ -168,7 +168,21 @@ export class SearchIndex {
     this.masks.clear();
   }
 
-  private readonly metaOfDoc = (d: number): EntryMeta => this.metaAt(d);
+  /**
+   * A doc's entry for building its hit at once (makeHit copies what it
+   * needs): a doc without metadata (a column-built index) gets one scratch
+   * entry, valid until the next call, where metaAt would allocate one per
+   * hit on the event loop.
+   */
+  private readonly metaOfDoc = (d: number): EntryMeta => {
+    const m = this.metas[d];
+    if (m) return m;
+    const b = this.bare;
+    b.spectrumId = this.seg.spectrumId[d];
+    b.recordId = this.seg.recordId[d];
+    return b;
+  };
+  private readonly bare: EntryMeta = { spectrumId: 0, recordId: 0, version: 1, name: '', formula: null, nominalMass: null, ihd: null, elements: NONE, tags: NONE, status: 'released', ri: NONE };
 
   private metaAt(d: number): EntryMeta {
     const m = this.metas[d];
