@@ -54,7 +54,8 @@ function scratchLayout(n: number, nBins: number) {
   const k = MAX_LIMIT;
   return {
     acc: [Float32Array, 2 * n],
-    seen: [Uint8Array, n],
+    // (Unused since the kernel reads seen from a doc's state bits; the slot keeps the header's places.)
+    spare: [Uint8Array, 0],
     touched: [Int32Array, n],
     candD: [Int32Array, n + 1],
     candV: [Float64Array, n],
