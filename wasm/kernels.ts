@@ -398,7 +398,9 @@ export function cosine(
         // (The mask of ab >= 0 from its sign bit: fewer instructions than a comparison.)
         const w = reinterpret<f32>(load<i32>(pj + dW) & ~(ab >> 31));
         const nr = reinterpret<i32>(reinterpret<f32>(ab) + xf * w);
-        const nb = nr | <i32>(nr == 0);
+        // (nr | (nr == 0) from the sign of nr - 1: a scored doc's negative bits
+        // get their lowest bit set, and stay negative, which is all they say.)
+        const nb = nr | <i32>(<u32>(nr - 1) >> 31);
         store<i32>(o, nb);
         store<f32>(o, load<f32>(o, 4) + w * w, 4);
         store<i32>(tP, d);
