@@ -316,6 +316,9 @@ export function cosine(
   noPruning: i32,
   penalty: f64,
   qNorm: f64,
+  pTop: usize,
+  topFrom: u32,
+  topTo: u32,
 ): void {
   acc = load<u32>(S);
   touched = load<u32>(S, 8);
@@ -417,7 +420,32 @@ export function cosine(
     }
     // refresh()
     pickSize = 0;
-    if (cut != Infinity) {
+    // (The first refresh takes the first bin's heaviest postings when they
+    // give k picks: see firstPicks in searchSegment.ts.)
+    let listed = false;
+    if (cut == Infinity && pos == 1 && topTo > topFrom) {
+      const from0 = load<u32>(oFrom);
+      const to0 = load<u32>(oTo);
+      let n: i32 = 0;
+      for (let i = topFrom; i < topTo && n < K; i++) {
+        const j = load<u32>(pTop + (<usize>i << 2));
+        if (j < from0 || j >= to0) continue;
+        const d = load<i32>(pDoc + (<usize>j << 2));
+        const a = partial(d);
+        if (a > 0) {
+          store<i32>(pickD + (<usize>n << 2), d);
+          store<f64>(pickS + (<usize>n << 3), a);
+          n++;
+        }
+      }
+      if (n == K) {
+        listed = true;
+        pickSize = K;
+      }
+    }
+    if (listed) {
+      // (Picks best first, no scan.)
+    } else if (cut != Infinity) {
       for (let i = 0; i < nHot; i++) {
         const d = load<i32>(candD + (<usize>i << 2));
         const a = partial(d);
@@ -437,7 +465,8 @@ export function cosine(
     }
     nHot = 0;
     // (Fewer than K picks: the last cut stays, see searchSegment.ts.)
-    if (pickSize == K) cut = load<f64>(pickS);
+    if (listed) cut = load<f64>(pickS + (<usize>(K - 1) << 3));
+    else if (pickSize == K) cut = load<f64>(pickS);
     else if (cut == Infinity) cut = 0;
     const rest0 = load<f64>(rR + (<usize>pos << 3));
     for (let i = 0; i < pickSize; i++) {

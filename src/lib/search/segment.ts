@@ -60,6 +60,15 @@ export interface Segment {
   pE: Float32Array;
   binMaxW: Float32Array;
   binMaxE: Float32Array;
+  /**
+   * Per bin with at least TOP_MIN_POSTINGS postings, its TOP_POSTINGS
+   * heaviest ones (posting indices, weight descending, then doc) at
+   * pTop[pTopStart[b]] .. pTop[pTopStart[b + 1]]; other bins have none. A
+   * cosine search's first refresh picks from them instead of every doc of
+   * its first bin (see cosineMaxScore).
+   */
+  pTopStart: Uint32Array;
+  pTop: Uint32Array;
   /** 1 while a doc is current, 0 once removed or replaced (shared, mutable). */
   live: Uint8Array;
   /**
@@ -77,7 +86,13 @@ function sharedArray<T>(Ctor: { new (buffer: SharedArrayBuffer, byteOffset: numb
 }
 
 /** Build a segment from stored spectra. Empty docs are kept (they match nothing). */
-export function buildSegment(cols: StoredColumns, tolerance: number, weights: PeakWeights): Segment {
+/** How many heaviest postings the long bins keep (TOP_POSTINGS, TOP_MIN_POSTINGS; smaller in tests, so small libraries have them). */
+export interface TopPostings {
+  postings: number;
+  minPostings: number;
+}
+
+export function buildSegment(cols: StoredColumns, tolerance: number, weights: PeakWeights, top: TopPostings = { postings: TOP_POSTINGS, minPostings: TOP_MIN_POSTINGS }): Segment {
   const { count, offsets, bins, rel, recordIds, spectrumIds } = cols;
   let sorted = true;
   for (let d = 1; d < count && sorted; d++) {
@@ -106,8 +121,10 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
 
   // Every array in one shared WebAssembly memory when possible (8-byte aligned each), else one SharedArrayBuffer each.
   const al = (bytes: number) => (Math.max(1, bytes) + 7) & ~7;
+  // (The bins' top postings take at most nPeaks / minPostings x postings entries.)
+  const topBound = Math.floor(nPeaks / top.minPostings) * top.postings;
   const bytes =
-    al(4 * (count + 1)) + al((wideBins ? 4 : 2) * nPeaks) + 5 * al(4 * nPeaks) + 6 * al(8 * count) + al(count) + al(4 * (nBins + 1)) + 2 * al(4 * nBins);
+    al(4 * (count + 1)) + al((wideBins ? 4 : 2) * nPeaks) + 5 * al(4 * nPeaks) + 6 * al(8 * count) + al(count) + 2 * al(4 * (nBins + 1)) + 2 * al(4 * nBins) + al(4 * topBound);
   const arena = count > 0 ? Arena.create(bytes, count, nBins) : null;
   const shared = <T>(Ctor: { new (buffer: ArrayBufferLike, byteOffset: number, length: number): T; BYTES_PER_ELEMENT: number }, length: number): T =>
     arena ? arena.take(Ctor, length) : sharedArray(Ctor, length);
@@ -181,6 +198,15 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
       if (fE[j] > binMaxE[b]) binMaxE[b] = fE[j];
     }
   }
+  const pTopStart = shared(Uint32Array, nBins + 1);
+  let nTop = 0;
+  for (let b = 0; b < nBins; b++) {
+    pTopStart[b] = nTop;
+    if (pStart[b + 1] - pStart[b] >= top.minPostings) nTop += top.postings;
+  }
+  pTopStart[nBins] = nTop;
+  const pTop = shared(Uint32Array, nTop);
+  for (let b = 0; b < nBins; b++) if (pTopStart[b + 1] > pTopStart[b]) heaviestPostings(pW, pStart[b], pStart[b + 1], pTop, pTopStart[b], top.postings);
   return {
     id: nextSegmentId++ + Math.floor(Math.random() * 1e6) * 1e6,
     n: count,
@@ -205,14 +231,74 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
     pE,
     binMaxW,
     binMaxE,
+    pTopStart,
+    pTop,
     live,
     memory: arena ? arena.memory : null,
   };
 }
 
+/** Postings a bin keeps among its heaviest (pTop): MAX_LIMIT / 2, so a top-100 search finds its first refresh's picks there even over half the docs. */
+export const TOP_POSTINGS = 256;
+/** The least postings of a bin that keeps its heaviest (a shorter bin is read whole, which costs little). */
+export const TOP_MIN_POSTINGS = 16 * TOP_POSTINGS;
+
+/**
+ * The m heaviest postings of from..to (weight descending, then posting
+ * index, which is doc order) into out[at..at + m], through a heap of the m
+ * best so far: a posting below its root, most of them, costs one comparison.
+ */
+export function heaviestPostings(pW: Float32Array, from: number, to: number, out: Uint32Array, at: number, m: number): void {
+  const hj = new Uint32Array(m);
+  let size = 0;
+  // worse(i, j): heap entry i ranks after entry j (lighter, or as heavy and later).
+  const worse = (i: number, j: number) => pW[hj[i]] < pW[hj[j]] || (pW[hj[i]] === pW[hj[j]] && hj[i] > hj[j]);
+  const down = (from0: number, n: number) => {
+    let i = from0;
+    for (;;) {
+      const l = 2 * i + 1;
+      const r = l + 1;
+      let w = i;
+      if (l < n && worse(l, w)) w = l;
+      if (r < n && worse(r, w)) w = r;
+      if (w === i) return;
+      const t = hj[i];
+      hj[i] = hj[w];
+      hj[w] = t;
+      i = w;
+    }
+  };
+  for (let j = from; j < to; j++) {
+    if (size < m) {
+      hj[size] = j;
+      let i = size++;
+      while (i > 0) {
+        const parent = (i - 1) >> 1;
+        if (!worse(i, parent)) break;
+        const t = hj[i];
+        hj[i] = hj[parent];
+        hj[parent] = t;
+        i = parent;
+      }
+    } else if (pW[j] > pW[hj[0]]) {
+      // (Later postings come in doc order, so one as heavy as the root ranks after it.)
+      hj[0] = j;
+      down(0, size);
+    }
+  }
+  // Heapsort: the worst goes to the end each turn, so the array ends best first.
+  for (let n = size - 1; n > 0; n--) {
+    const t = hj[0];
+    hj[0] = hj[n];
+    hj[n] = t;
+    down(0, n);
+  }
+  for (let i = 0; i < size; i++) out[at + i] = hj[i];
+}
+
 /** Bytes held by a segment's typed arrays (forward storage, postings and per-doc columns). */
 export function segmentBytes(seg: Segment): number {
-  const arrays = [seg.docStart, seg.fBin, seg.fW, seg.fRel, seg.docNorm, seg.eSum, seg.ePow, seg.eSumW, seg.recordId, seg.spectrumId, seg.pStart, seg.pDoc, seg.pW, seg.pE, seg.binMaxW, seg.binMaxE, seg.live];
+  const arrays = [seg.docStart, seg.fBin, seg.fW, seg.fRel, seg.docNorm, seg.eSum, seg.ePow, seg.eSumW, seg.recordId, seg.spectrumId, seg.pStart, seg.pDoc, seg.pW, seg.pE, seg.binMaxW, seg.binMaxE, seg.pTopStart, seg.pTop, seg.live];
   let bytes = 0;
   for (const a of arrays) bytes += a.byteLength;
   return bytes;

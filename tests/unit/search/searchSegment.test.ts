@@ -1,7 +1,8 @@
 import { execFileSync } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SearchIndex } from '../../../src/lib/search/SearchIndex';
-import { resolveSearchOptions } from '../../../src/lib/search/options';
+import { resolveIndexOptions, resolveSearchOptions } from '../../../src/lib/search/options';
+import { buildSegment } from '../../../src/lib/search/segment';
 import { prepareQuery } from '../../../src/lib/search/prepare';
 import { bruteForceSegment, searchSegment, type KernelParams } from '../../../src/lib/search/searchSegment';
 import { SCORE_NAMES } from '../../../src/lib/search/types';
@@ -224,6 +225,62 @@ describe('the compiled cosine kernel', () => {
       for (const d of wasm.docs) if (seg.ePow[d] > 0) reweighted++;
     }
     expect(reweighted).toBeGreaterThan(0);
+  });
+
+  it("the first refresh picks from the first bin's heaviest postings: the same hits, postings and rescorings in both kernels, and brute force's hits", () => {
+    // (Small lists, so a small library has them: bins of 64 postings or more keep their 32 heaviest.)
+    const cols = skewedLibrary(6000, 7171);
+    const io = resolveIndexOptions();
+    const seg = buildSegment(cols, io.tolerance, io.weights, { postings: 32, minPostings: 64 });
+    const r = rng(44);
+    const level = { noise: 0.2, dropBelow: 0.02, dropP: 0.3, background: 3 };
+    let listed = 0;
+    for (let qi = 0; qi < 60; qi++) {
+      const k = [1, 10, 30, 40][qi % 4];
+      const q = prepareQuery(noisyReplicate(docPeaks(cols, Math.floor(r() * cols.count)), r, level), resolveSearchOptions({ rankBy: 'cosine', limit: k }));
+      let allow = seg.live;
+      if (qi % 3 === 1) {
+        allow = new Uint8Array(seg.n);
+        for (let d = 0; d < seg.n; d++) allow[d] = [0, 1, 1, 2][Math.floor(r() * 4)];
+      }
+      const params: KernelParams = { k, rankBy: 'cosine', allow, penalty: 0.05, lo: qi % 5 === 0 ? 900 : 0, hi: qi % 7 === 0 ? 4500 : seg.n, generic: null };
+      const both = sameFromBothKernels(seg, q, params);
+      expect(asKeys(both)).toEqual(asKeys(bruteForceSegment(seg, q, params)));
+      // (Whether this query's first bin keeps its heaviest: the path is taken when k of them are in range and admitted.)
+      let best = -1;
+      let bin = -1;
+      for (let i = 0; i < q.n; i++) {
+        const b = q.bins[i];
+        if (b < 0 || b >= seg.nBins || seg.pStart[b] === seg.pStart[b + 1]) continue;
+        const u = (q.w[i] / q.norm) * seg.binMaxW[b];
+        if (u > best) {
+          best = u;
+          bin = b;
+        }
+      }
+      if (bin >= 0 && seg.pTopStart[bin + 1] > seg.pTopStart[bin]) listed++;
+    }
+    expect(listed).toBeGreaterThan(20);
+  });
+
+  it('keeps each long bin\'s heaviest postings, weight descending then doc', () => {
+    const cols = skewedLibrary(3000, 99);
+    const io = resolveIndexOptions();
+    const seg = buildSegment(cols, io.tolerance, io.weights, { postings: 16, minPostings: 40 });
+    let checked = 0;
+    for (let b = 0; b < seg.nBins; b++) {
+      const from = seg.pStart[b];
+      const to = seg.pStart[b + 1];
+      const kept = Array.from(seg.pTop.subarray(seg.pTopStart[b], seg.pTopStart[b + 1]));
+      if (to - from < 40) {
+        expect(kept).toEqual([]);
+        continue;
+      }
+      const all = Array.from({ length: to - from }, (_, i) => from + i).sort((x, y) => seg.pW[y] - seg.pW[x] || x - y);
+      expect(kept).toEqual(all.slice(0, 16));
+      checked++;
+    }
+    expect(checked).toBeGreaterThan(10);
   });
 
   it('is what wasm/kernels.ts compiles to (scripts/build-wasm.mjs --check)', () => {
