@@ -264,6 +264,9 @@ function flush(): void {
   return <i32>min<f64>(<f64>(NB - 1), max<f64>(0, Math.floor((v - floorV) / width)));
 }
 
+/** The bits of a scored doc's state, float32 -1 (a NaN's bits would not survive the arithmetic). */
+const SCORED: i32 = reinterpret<i32>(<f32>-1);
+
 /**
  * Marks the excluded docs of lo..hi (mask byte 0) as scored (state -1),
  * so the admission tells them from new docs by their state alone. The mask is
@@ -271,17 +274,9 @@ function flush(): void {
  * (every doc's state is 0 at the start of a search, so writing 0 for the
  * others changes nothing). Returns whether any doc was marked.
  */
-/** The bits of a scored doc's state, float32 -1 (a NaN's bits would not survive the arithmetic). */
-const SCORED: i32 = reinterpret<i32>(<f32>-1);
-
 function markExcluded(allow: usize, lo: i32, hi: i32): bool {
   let any: u64 = 0;
   let d = lo;
-  for (; d < hi && (d & 7) != 0; d++) {
-    const z = <i32>(load<u8>(allow + <usize>d) == 0);
-    store<i32>(acc + (<usize>d << 3), -z & SCORED);
-    any |= <u64>z;
-  }
   for (; d + 8 <= hi; d += 8) {
     const v = load<u64>(allow + <usize>d);
     // (A word with a zero byte: the classic test, exact for the high bits.)
@@ -420,54 +415,33 @@ export function cosine(
     }
     // refresh()
     pickSize = 0;
-    // (The first refresh takes the first bin's heaviest postings when they
-    // give k picks: see firstPicks in searchSegment.ts.)
-    let listed = false;
-    if (cut == Infinity && pos == 1 && topTo > topFrom) {
-      const from0 = load<u32>(oFrom);
-      const to0 = load<u32>(oTo);
-      let n: i32 = 0;
-      for (let i = topFrom; i < topTo && n < K; i++) {
-        const j = load<u32>(pTop + (<usize>i << 2));
-        if (j < from0 || j >= to0) continue;
-        const d = load<i32>(pDoc + (<usize>j << 2));
-        const a = partial(d);
-        if (a > 0) {
-          store<i32>(pickD + (<usize>n << 2), d);
-          store<f64>(pickS + (<usize>n << 3), a);
-          n++;
+    if (cut == Infinity && pos == 1 && firstPicks(pTop, topFrom, topTo, pDoc)) {
+      // (Picks best first: the k-th partial dot is the last.)
+      cut = load<f64>(pickS + (<usize>(K - 1) << 3));
+    } else {
+      if (cut != Infinity) {
+        for (let i = 0; i < nHot; i++) {
+          const d = load<i32>(candD + (<usize>i << 2));
+          const a = partial(d);
+          if (a > 0 && (pickSize < K || a > load<f64>(pickS))) pickSize = heapPush(pickS, pickD, pickSize, a, d);
+        }
+      } else if (nTouched > quarter) {
+        for (let d = lo; d < hi; d++) {
+          const a = partial(d);
+          if (a > 0 && (pickSize < K || a > load<f64>(pickS))) pickSize = heapPush(pickS, pickD, pickSize, a, d);
+        }
+      } else {
+        for (let t = 0; t < nTouched; t++) {
+          const d = load<i32>(touched + (<usize>t << 2));
+          const a = partial(d);
+          if (a > 0 && (pickSize < K || a > load<f64>(pickS))) pickSize = heapPush(pickS, pickD, pickSize, a, d);
         }
       }
-      if (n == K) {
-        listed = true;
-        pickSize = K;
-      }
-    }
-    if (listed) {
-      // (Picks best first, no scan.)
-    } else if (cut != Infinity) {
-      for (let i = 0; i < nHot; i++) {
-        const d = load<i32>(candD + (<usize>i << 2));
-        const a = partial(d);
-        if (a > 0 && (pickSize < K || a > load<f64>(pickS))) pickSize = heapPush(pickS, pickD, pickSize, a, d);
-      }
-    } else if (nTouched > quarter) {
-      for (let d = lo; d < hi; d++) {
-        const a = partial(d);
-        if (a > 0 && (pickSize < K || a > load<f64>(pickS))) pickSize = heapPush(pickS, pickD, pickSize, a, d);
-      }
-    } else {
-      for (let t = 0; t < nTouched; t++) {
-        const d = load<i32>(touched + (<usize>t << 2));
-        const a = partial(d);
-        if (a > 0 && (pickSize < K || a > load<f64>(pickS))) pickSize = heapPush(pickS, pickD, pickSize, a, d);
-      }
+      // (Fewer than K picks: the last cut stays, see searchSegment.ts.)
+      if (pickSize == K) cut = load<f64>(pickS);
+      else if (cut == Infinity) cut = 0;
     }
     nHot = 0;
-    // (Fewer than K picks: the last cut stays, see searchSegment.ts.)
-    if (listed) cut = load<f64>(pickS + (<usize>(K - 1) << 3));
-    else if (pickSize == K) cut = load<f64>(pickS);
-    else if (cut == Infinity) cut = 0;
     const rest0 = load<f64>(rR + (<usize>pos << 3));
     for (let i = 0; i < pickSize; i++) {
       const d = load<i32>(pickD + (<usize>i << 2));
@@ -619,6 +593,31 @@ export function cosine(
   store<f64>(out, postings);
   store<f64>(out, <f64>evaluated, 8);
   store<f64>(out, <f64>heapSize, 16);
+}
+
+/**
+ * firstPicks of searchSegment.ts: the first refresh's picks, best first, from
+ * the first bin's heaviest postings (pTop[topFrom..topTo]) of docs in its
+ * posting range and admitted; true, with pickSize = K, when there are K.
+ */
+function firstPicks(pTop: usize, topFrom: u32, topTo: u32, pDoc: usize): bool {
+  const from0 = load<u32>(oFrom);
+  const to0 = load<u32>(oTo);
+  let n: i32 = 0;
+  for (let i = topFrom; i < topTo && n < K; i++) {
+    const j = load<u32>(pTop + (<usize>i << 2));
+    if (j < from0 || j >= to0) continue;
+    const d = load<i32>(pDoc + (<usize>j << 2));
+    const a = partial(d);
+    if (a > 0) {
+      store<i32>(pickD + (<usize>n << 2), d);
+      store<f64>(pickS + (<usize>n << 3), a);
+      n++;
+    }
+  }
+  if (n < K) return false;
+  pickSize = K;
+  return true;
 }
 
 /** The bits of the smallest positive float32 a with a + rest >= th (f64 arithmetic); above +Infinity's bits when there is none. */

@@ -238,7 +238,7 @@ export function buildSegment(cols: StoredColumns, tolerance: number, weights: Pe
   };
 }
 
-/** Postings a bin keeps among its heaviest (pTop): MAX_LIMIT / 2, so a top-100 search finds its first refresh's picks there even over half the docs. */
+/** Postings a bin keeps among its heaviest (pTop): enough for a search of up to 256 hits, and for a top-100 search over half the docs (a pool task's range) to find its 100 there. */
 export const TOP_POSTINGS = 256;
 /** The least postings of a bin that keeps its heaviest (a shorter bin is read whole, which costs little). */
 export const TOP_MIN_POSTINGS = 16 * TOP_POSTINGS;
